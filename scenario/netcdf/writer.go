@@ -192,10 +192,7 @@ func (w *Writer) begin(name string, t Type, n int) (int, error) {
 	}
 	vi, r := w.current()
 	v := &w.h.Vars[vi]
-	where := ""
-	if r >= 0 {
-		where = fmt.Sprintf(" (record %d)", r)
-	}
+	where := recordNote(r) // formatted with %v only on error
 	if v.Name != name {
 		w.err = fmt.Errorf("netcdf: data for variable %q given while variable %q%s is due next; data must follow the file order", name, v.Name, where)
 		return 0, w.err
@@ -219,6 +216,16 @@ func (w *Writer) begin(name string, t Type, n int) (int, error) {
 		}
 	}
 	return vi, nil
+}
+
+// recordNote describes record r for error messages.
+type recordNote int
+
+func (r recordNote) String() string {
+	if r < 0 {
+		return ""
+	}
+	return fmt.Sprintf(" (record %d)", int(r))
 }
 
 // advance accounts for n values written to variable vi and closes the slab
