@@ -49,19 +49,23 @@ func (s *Solver) Coated(xCore, x float64, mCore, mShell complex128) (Efficiencie
 
 	// Upward recurrences (Yang 2003, eqs. 15–18), BH convention
 	// ξ_n(z) = z·h_n^(1)(z): ψ_0ξ_0 = (1 − e^{2iz})/2, D3_0 = i,
-	// ψ_nξ_n = ψ_{n−1}ξ_{n−1}·(n/z − D1_{n−1})(n/z − D3_{n−1}),
-	// D3_n = D1_n + i/(ψ_nξ_n).
+	// ψ_nξ_n = ψ_{n−1}ξ_{n−1}·(ψ_n/ψ_{n−1})(ξ_n/ξ_{n−1}),
+	// D3_n = D1_n + i/(ψ_nξ_n). The ratio ψ_n/ψ_{n−1} is taken as
+	// 1/(D1_n + n/z) rather than Yang's n/z − D1_{n−1}, which cancels
+	// catastrophically for |z| ≪ n (a vanishing core); ξ_n/ξ_{n−1} =
+	// n/z − D3_{n−1} has no such cancellation.
 	px1 := -expm1i2(z1) / 2
 	px2 := -expm1i2(z2) / 2
 	q := cmplx.Exp(2i*(z2-z1)) * expm1i2(z1) / expm1i2(z2)
 	d31, d32 := complex(0, 1), complex(0, 1) // D3_{n−1}(z1), D3_{n−1}(z2)
 	for n := 1; n <= nstop; n++ {
 		fn := complex(float64(n), 0)
-		d1p1, d1p2 := s.d2[n-1], s.d[n-1] // D1_{n−1}
-		px1 *= (fn/z1 - d1p1) * (fn/z1 - d31)
-		px2 *= (fn/z2 - d1p2) * (fn/z2 - d32)
-		q *= (fn/z1 - d1p1) / (fn/z1 - d31) * (fn/z2 - d32) / (fn/z2 - d1p2)
-		d1z1, d1z2 := s.d2[n], s.d[n]
+		d1z1, d1z2 := s.d2[n], s.d[n] // D1_n
+		rp1, rp2 := 1/(d1z1+fn/z1), 1/(d1z2+fn/z2)
+		rx1, rx2 := fn/z1-d31, fn/z2-d32
+		px1 *= rp1 * rx1
+		px2 *= rp2 * rx2
+		q *= rp1 / rx1 * rx2 / rp2
 		d3z1 := d1z1 + 1i/px1
 		d3z2 := d1z2 + 1i/px2
 		core := s.dc[n]
