@@ -131,6 +131,7 @@ func TestBackscatterSub(t *testing.T) {
 	spec := testSpec()
 	spec.Workers = 1
 	spec.BackscatterSub = 4
+	spec.BackscatterX = 1 // cap from x = 1 on, so the test grid exercises it
 	tab, err := Build(geometric{}, spec)
 	if err != nil {
 		t.Fatal(err)
