@@ -13,10 +13,12 @@ import (
 	"math"
 	"strconv"
 	"strings"
+	"unicode/utf8"
 )
 
 // Column describes one column. Unit is a UDUNITS-style string ("m-1",
-// "m2 g-1", "1" for dimensionless); an empty Unit marks a text column.
+// "m2 g-1", "1" for dimensionless); leave it empty for text columns and for
+// columns without a single unit.
 type Column struct {
 	Name string
 	Unit string
@@ -103,15 +105,20 @@ func cell(v any, full bool) string {
 	return fmt.Sprint(v)
 }
 
-// WriteText writes an aligned, human-readable table: text left-aligned,
-// numbers right-aligned, units in the header.
+// WriteText writes an aligned, human-readable table: numbers right-aligned,
+// text left-aligned, units in the header. Widths count runes, not bytes.
 func (t *Table) WriteText(w io.Writer) error {
 	n := len(t.Columns)
 	width := make([]int, n)
 	heads := make([]string, n)
+	numeric := make([]bool, n)
 	for i, c := range t.Columns {
 		heads[i] = header(c)
-		width[i] = len(heads[i])
+		width[i] = utf8.RuneCountInString(heads[i])
+		if len(t.Rows) > 0 {
+			_, isText := t.Rows[0][i].(string)
+			numeric[i] = !isText
+		}
 	}
 	cells := make([][]string, len(t.Rows))
 	for r, row := range t.Rows {
@@ -119,7 +126,7 @@ func (t *Table) WriteText(w io.Writer) error {
 		for i, v := range row {
 			s := cell(v, false)
 			cells[r][i] = s
-			width[i] = max(width[i], len(s))
+			width[i] = max(width[i], utf8.RuneCountInString(s))
 		}
 	}
 	var b strings.Builder
@@ -127,26 +134,26 @@ func (t *Table) WriteText(w io.Writer) error {
 		b.WriteString(t.Title)
 		b.WriteByte('\n')
 	}
-	line := func(vals []string, numeric func(int) bool) {
+	line := func(vals []string) {
 		for i, s := range vals {
 			if i > 0 {
 				b.WriteString("  ")
 			}
-			pad := strings.Repeat(" ", width[i]-len(s))
-			if numeric(i) {
+			pad := strings.Repeat(" ", width[i]-utf8.RuneCountInString(s))
+			switch {
+			case numeric[i]:
 				b.WriteString(pad + s)
-			} else if i == n-1 {
+			case i == n-1:
 				b.WriteString(s)
-			} else {
+			default:
 				b.WriteString(s + pad)
 			}
 		}
 		b.WriteByte('\n')
 	}
-	isNum := func(i int) bool { return t.Columns[i].Unit != "" }
-	line(heads, isNum)
+	line(heads)
 	for _, row := range cells {
-		line(row, isNum)
+		line(row)
 	}
 	_, err := io.WriteString(w, b.String())
 	return err
