@@ -162,13 +162,27 @@ func (v VSF) at(theta float64) float64 {
 
 // segment interpolates inside [Angle[i], Angle[i+1]].
 func (v VSF) segment(i int, theta float64) float64 {
+	k, power := v.exponent(i)
+	return v.segmentWith(i, k, power, theta)
+}
+
+// exponent returns the power-law exponent of segment i, or power = false
+// when the segment is interpolated linearly.
+func (v VSF) exponent(i int) (k float64, power bool) {
 	t0, t1 := v.Angle[i], v.Angle[i+1]
 	b0, b1 := v.Beta[i], v.Beta[i+1]
 	if t0 > 0 && b0 > 0 && b1 > 0 {
-		k := math.Log(b1/b0) / math.Log(t1/t0)
+		return math.Log(b1/b0) / math.Log(t1/t0), true
+	}
+	return 0, false
+}
+
+func (v VSF) segmentWith(i int, k float64, power bool, theta float64) float64 {
+	t0, b0 := v.Angle[i], v.Beta[i]
+	if power {
 		return b0 * math.Pow(theta/t0, k)
 	}
-	return b0 + (b1-b0)*(theta-t0)/(t1-t0)
+	return b0 + (v.Beta[i+1]-b0)*(theta-t0)/(v.Angle[i+1]-t0)
 }
 
 // glX and glW are 8-point Gauss–Legendre nodes and weights on [-1, 1]
@@ -201,16 +215,17 @@ func (v VSF) cone(thetaMax float64) (total, held float64) {
 		if lo >= thetaMax {
 			break
 		}
+		k, power := v.exponent(i)
+		b1 := v.Beta[i+1]
 		if hi > thetaMax {
 			hi = thetaMax
+			b1 = v.segmentWith(i, k, power, hi)
 		}
-		mid, half := (lo+hi)/2, (hi-lo)/2
-		var s float64
-		for j, x := range glX {
-			t := mid + half*x
-			s += glW[j] * v.segment(i, t) * math.Sin(t)
+		if power && hi <= seriesMaxAngle {
+			total += 2 * math.Pi * powerSinSeries(lo, hi, v.Beta[i], b1, k)
+		} else {
+			total += 2 * math.Pi * v.segmentGL(i, k, power, lo, hi)
 		}
-		total += 2 * math.Pi * half * s
 	}
 	if last := v.Angle[len(v.Angle)-1]; thetaMax > last {
 		// Beyond the last sample, hold the last value.
@@ -218,6 +233,55 @@ func (v VSF) cone(thetaMax float64) (total, held float64) {
 		total += 2 * math.Pi * v.Beta[len(v.Beta)-1] * (c0 - c1)
 	}
 	return total, held
+}
+
+// segmentGL integrates β(θ) sin θ over [lo, hi] inside segment i with
+// 8-point Gauss–Legendre quadrature.
+func (v VSF) segmentGL(i int, k float64, power bool, lo, hi float64) float64 {
+	mid, half := (lo+hi)/2, (hi-lo)/2
+	var s float64
+	for j, x := range glX {
+		t := mid + half*x
+		s += glW[j] * v.segmentWith(i, k, power, t) * math.Sin(t)
+	}
+	return half * s
+}
+
+// seriesMaxAngle is the largest angle, rad, for which powerSinSeries is
+// used: the sine series below is truncated after the θ⁹ term, whose
+// successor θ¹¹/11! is below 1.3e-11·θ at 0.5 rad.
+const seriesMaxAngle = 0.5
+
+// sinSeries holds the Taylor coefficients of sin θ = Σ c_j θ^(2j+1).
+var sinSeries = [...]float64{1, -1.0 / 6, 1.0 / 120, -1.0 / 5040, 1.0 / 362880}
+
+// powerSinSeries integrates β(θ) sin θ over [t0, t1] (0 < t0 < t1 ≤
+// seriesMaxAngle) for the power law β = b0 (θ/t0)^k through (t1, b1), in
+// closed form term by term of the sine series:
+//
+//	∫ b0 (θ/t0)^k θ^m dθ = (b1 t1^(m+1) − b0 t0^(m+1)) / (k + m + 1),
+//
+// using (t1/t0)^k = b1/b0, so no powers are evaluated. When k + m + 1 is
+// near 0 the expression is replaced by its expm1 series in (k+m+1)·ln(t1/t0)
+// to avoid cancellation.
+func powerSinSeries(t0, t1, b0, b1, k float64) float64 {
+	L := math.Log(t1 / t0)
+	p0, p1 := t0*t0, t1*t1 // t^(m+1) for m = 1
+	var s float64
+	for j, c := range sinSeries {
+		m := float64(2*j + 1)
+		e := k + m + 1
+		var term float64
+		if x := e * L; math.Abs(x) > 1e-4 {
+			term = (b1*p1 - b0*p0) / e
+		} else {
+			term = b0 * p0 * L * (1 + x/2 + x*x/6)
+		}
+		s += c * term
+		p0 *= t0 * t0
+		p1 *= t1 * t1
+	}
+	return s
 }
 
 // interp returns y(xq) by linear interpolation on ascending x; xq must lie
