@@ -5,6 +5,7 @@ import (
 	"strings"
 	"testing"
 
+	"github.com/murk-optics/murk/mie"
 	"gonum.org/v1/gonum/integrate/quad"
 )
 
@@ -139,5 +140,38 @@ func TestCellIndexRoundTrip(t *testing.T) {
 	}
 	if _, err := CellIndex(0.1e6, 1, -1, lambda, nw); err == nil || !strings.Contains(err.Error(), "cell diameter") {
 		t.Errorf("negative diameter: %v", err)
+	}
+}
+
+func TestCellIndexAgainstMie(t *testing.T) {
+	// Independent check with Lorenz–Mie theory (package mie). Q_a is the
+	// anomalous-diffraction absorption efficiency (van de Hulst 1957), exact
+	// in the limit m → 1, x → ∞; the leading correction is the edge term,
+	// of order x^(−2/3) (from memory: Nussenzveig & Wiscombe 1980), about
+	// 1 % at x = 1000. So a cell of real relative index 1.001 with the
+	// imaginary index from CellIndex must absorb, per chlorophyll, what the
+	// packaged model says to 2 % (twice that edge term).
+	const nw, lambda = 1.3387, 440e-9   // Quan & Fry at 440 nm, ~15 °C, S ≈ 5
+	d := 1000 * lambda / (math.Pi * nw) // x = 1000
+	for _, c := range []struct{ aCell, ci float64 }{
+		{5000, 1},  // ρ' ≈ 0.6
+		{1300, 10}, // ρ' ≈ 4.5: strong packaging
+	} {
+		k, err := CellIndex(c.aCell, c.ci, d, lambda, nw)
+		if err != nil {
+			t.Fatal(err)
+		}
+		x := mie.SizeParameter(d, lambda, nw)
+		e, err := mie.Sphere(x, complex(1.001, k))
+		if err != nil {
+			t.Fatal(err)
+		}
+		perChl := e.Qabs * 1.5 / (c.ci * d) // C_abs/(ci·V) = Qabs·πr²/(ci·4πr³/3)
+		if math.Abs(perChl/c.aCell-1) > 0.02 {
+			t.Errorf("%+v: x = %.0f, k = %.3g: Mie a* = %.5g m2 kg-1, packaged model %.5g", c, x, k, perChl, c.aCell)
+		}
+		if testing.Verbose() {
+			t.Logf("ρ' case %+v: Mie/model = %.5f", c, perChl/c.aCell)
+		}
 	}
 }
