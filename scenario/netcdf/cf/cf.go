@@ -97,6 +97,7 @@ type Dataset struct {
 	dims   []netcdf.Dim
 	vars   []netcdf.Var
 	coords map[string][]float64 // values written automatically
+	labels map[string]string    // padded label text written automatically
 	time   string
 	nrec   int
 	errs   []string
@@ -271,6 +272,55 @@ func (d *Dataset) AddCoord(c Coord) {
 	d.dims = append(d.dims, netcdf.Dim{Name: c.Name, Len: len(c.Values)})
 	d.vars = append(d.vars, netcdf.Var{Name: c.Name, Type: typ, Dims: []string{c.Name}, Attrs: attrs})
 	d.setCoord(c.Name, c.Values)
+}
+
+// Labels is a dimension whose indices are named, such as particle
+// populations or stations: it defines the dimension Name, a dimension
+// Name+"_strlen" as long as the longest label, and a char variable
+// Name+"_name"(Name, Name+"_strlen") holding the labels, which data
+// variables can reference through their coordinates attribute (CF section
+// 6.1, labels as auxiliary coordinates).
+type Labels struct {
+	Name     string   // dimension name
+	Labels   []string // one per index: non-empty, distinct, ASCII or UTF-8 text
+	LongName string   // required, e.g. "particle population"
+}
+
+// AddLabels defines a labelled dimension (see [Labels]).
+func (d *Dataset) AddLabels(l Labels) {
+	strlen, vname := l.Name+"_strlen", l.Name+"_name"
+	for _, n := range []string{l.Name, strlen, vname} {
+		if d.hasName(n) {
+			d.fail("labels %q: name %q already used", l.Name, n)
+			return
+		}
+	}
+	if len(l.Labels) == 0 || l.LongName == "" {
+		d.fail("labels %q: %d labels and LongName %q; at least 1 label and a LongName are required", l.Name, len(l.Labels), l.LongName)
+		return
+	}
+	width := 0
+	seen := make(map[string]bool, len(l.Labels))
+	for i, s := range l.Labels {
+		if s == "" || seen[s] || strings.IndexByte(s, 0) >= 0 {
+			d.fail("labels %q: label %d %q is empty, repeated or contains NUL; allowed distinct non-empty text", l.Name, i, s)
+			return
+		}
+		seen[s] = true
+		width = max(width, len(s))
+	}
+	var text strings.Builder
+	for _, s := range l.Labels {
+		text.WriteString(s)
+		text.WriteString(strings.Repeat("\x00", width-len(s)))
+	}
+	d.dims = append(d.dims, netcdf.Dim{Name: l.Name, Len: len(l.Labels)}, netcdf.Dim{Name: strlen, Len: width})
+	d.vars = append(d.vars, netcdf.Var{Name: vname, Type: netcdf.Char, Dims: []string{l.Name, strlen},
+		Attrs: []netcdf.Attr{netcdf.Text("long_name", l.LongName)}})
+	if d.labels == nil {
+		d.labels = make(map[string]string)
+	}
+	d.labels[vname] = text.String()
 }
 
 // AddVar defines a data variable over dimensions already defined.

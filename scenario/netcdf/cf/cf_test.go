@@ -35,6 +35,10 @@ func quellDataset(unlimited bool) *Dataset {
 		LongName: "layer number (1 upper, 2 lower)", Axis: "Z", Positive: "down"})
 	d.AddCoord(Coord{Name: "wavelength", Values: []float64{440, 550, 660}, Units: "nm",
 		LongName: "wavelength in vacuum", StandardName: StdRadiationWavelength, Type: netcdf.Float})
+	d.AddLabels(Labels{Name: "population", Labels: []string{"mineral", "organic", "phytoplankton"},
+		LongName: "particle population"})
+	d.AddVar(Var{Name: "share", Type: netcdf.Short, Dims: []string{"population"}, Units: "percent",
+		LongName: "share of backscattering", Extra: []netcdf.Attr{netcdf.Text("coordinates", "population_name")}})
 	d.AddVar(Var{Name: "depth_mean", Dims: []string{"distance"}, Units: "m", LongName: "mean channel depth"})
 	d.AddVar(Var{Name: "salinity", Type: netcdf.Float, Dims: []string{"time", "distance", "layer"},
 		Units: "1", LongName: "practical salinity", StandardName: StdSalinity, Fill: true})
@@ -50,6 +54,9 @@ func salinityValue(t, i, l int) float32 { return float32(10*t+i) + 0.5*float32(l
 func writeQuell(t *testing.T, path string, unlimited bool) {
 	t.Helper()
 	err := Create(path, quellDataset(unlimited), func(w *Writer) error {
+		if err := w.Int16s("share", []int16{70, 20, 10}); err != nil {
+			return err
+		}
 		if err := w.Float64s("depth_mean", []float64{5, 6, 7, 8}); err != nil {
 			return err
 		}
@@ -141,6 +148,9 @@ func TestNcdumpHeader(t *testing.T) {
 			"double bb(time, distance, layer, wavelength) ;",
 			`bb:units = "m-1" ;`,
 			`:Conventions = "CF-1.8" ;`,
+			"population_strlen = 13 ;",
+			"char population_name(population, population_strlen) ;",
+			`share:coordinates = "population_name" ;`,
 			`:title = "Quell estuary test file" ;`,
 		} {
 			if !strings.Contains(string(out), want) {
@@ -164,6 +174,7 @@ type readback struct {
 		Vars map[string]struct {
 			Units  string     `json:"units"`
 			Values []*float64 `json:"values"`
+			Text   []string   `json:"text"`
 		} `json:"vars"`
 	} `json:"xarray"`
 }
@@ -173,6 +184,7 @@ type readbackNC4Var struct {
 	Dtype  string         `json:"dtype"`
 	Attrs  map[string]any `json:"attrs"`
 	Values []float64      `json:"values"`
+	Text   []string       `json:"text"`
 }
 
 // TestReadBackPython reads the file with Python's netCDF4 (raw values) and
@@ -247,6 +259,16 @@ func TestReadBackPython(t *testing.T) {
 				}
 			}
 		}
+		wantLabels := "mineral,organic,phytoplankton"
+		if got := strings.Join(nc.Vars["population_name"].Text, ","); got != wantLabels {
+			t.Errorf("netCDF4 population_name = %q, want %q", got, wantLabels)
+		}
+		if got := strings.Join(rb.Xarray.Vars["population_name"].Text, ","); got != wantLabels {
+			t.Errorf("xarray population_name = %q, want %q", got, wantLabels)
+		}
+		if got := nc.Vars["share"].Values; len(got) != 3 || got[0] != 70 || got[2] != 10 {
+			t.Errorf("share = %v, want [70 20 10]", got)
+		}
 		if u := rb.Xarray.Vars["distance"].Units; u != "km" {
 			t.Errorf("distance units %q", u)
 		}
@@ -265,6 +287,7 @@ func TestDatasetErrors(t *testing.T) {
 	d.AddVar(Var{Name: "v", Dims: []string{"nowhere"}, Units: "m", LongName: "v"})
 	d.AddVar(Var{Name: "w", Dims: []string{"w"}, Units: "m", LongName: "dup"})
 	d.AddVar(Var{Name: "u", Dims: []string{"w"}, LongName: "u"})
+	d.AddLabels(Labels{Name: "pop", Labels: []string{"a", "a"}, LongName: "p"})
 	_, err := d.Header()
 	if err == nil {
 		t.Fatal("no error")
@@ -278,6 +301,7 @@ func TestDatasetErrors(t *testing.T) {
 		`variable "w": name already used`,
 		`variable "u": Units ""`,
 		"Global.Title is required",
+		`labels "pop": label 1 "a" is empty, repeated`,
 	} {
 		if !strings.Contains(err.Error(), want) {
 			t.Errorf("error lacks %q:\n%v", want, err)
@@ -299,6 +323,9 @@ func TestCreateAtomic(t *testing.T) {
 		t.Fatalf("err = %v, want boom", err)
 	}
 	err := Create(path, quellDataset(true), func(w *Writer) error {
+		if err := w.Int16s("share", []int16{1, 2, 3}); err != nil {
+			return err
+		}
 		return w.Float64s("depth_mean", []float64{1, 2, 3, 4})
 	})
 	if !errors.Is(err, netcdf.ErrIncomplete) {

@@ -13,6 +13,8 @@
 //   - coordinate variables (section 5): one-dimensional, named as their
 //     dimension, strictly monotonic, with units, long_name, and optionally
 //     standard_name, axis and positive;
+//   - labelled dimensions (section 6.1), e.g. particle populations or
+//     stations: a char variable NAME_name holds one label per index;
 //   - data variables with units (UDUNITS syntax, "1" if dimensionless),
 //     long_name, standard_name where the CF Standard Name Table has one
 //     (constants Std… below), and optionally _FillValue equal to the

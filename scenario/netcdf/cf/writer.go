@@ -17,6 +17,7 @@ import (
 type Writer struct {
 	w      *netcdf.Writer
 	coords map[string]coordData
+	labels map[string]string
 }
 
 type coordData struct {
@@ -35,7 +36,7 @@ func NewWriter(out io.Writer, d *Dataset) (*Writer, error) {
 	if err != nil {
 		return nil, err
 	}
-	w := &Writer{w: nw, coords: make(map[string]coordData, len(d.coords))}
+	w := &Writer{w: nw, coords: make(map[string]coordData, len(d.coords)), labels: d.labels}
 	for _, v := range h.Vars {
 		vals, ok := d.coords[v.Name]
 		if !ok {
@@ -73,6 +74,12 @@ func Create(path string, d *Dataset, fill func(w *Writer) error) error {
 func (w *Writer) coordinates() error {
 	for {
 		name, rec, _ := w.w.Next()
+		if text, ok := w.labels[name]; ok {
+			if err := w.w.WriteText(name, text); err != nil {
+				return err
+			}
+			continue
+		}
 		c, ok := w.coords[name]
 		if !ok {
 			return nil

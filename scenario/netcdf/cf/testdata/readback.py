@@ -38,20 +38,27 @@ with netCDF4.Dataset(path) as ds:
     out["netCDF4"]["dims"] = {k: [len(d), d.isunlimited()] for k, d in ds.dimensions.items()}
     out["netCDF4"]["vars"] = {}
     for name, v in ds.variables.items():
-        out["netCDF4"]["vars"][name] = {
+        entry = {
             "dims": list(v.dimensions),
             "dtype": str(v.dtype),
             "attrs": {k: plain(v.getncattr(k)) for k in v.ncattrs()},
-            "values": plain(np.asarray(v[:]).ravel()),
         }
+        if v.dtype.kind == "S":  # char array: one string per row
+            entry["text"] = [str(s) for s in netCDF4.chartostring(v[:])]
+        else:
+            entry["values"] = plain(np.asarray(v[:]).ravel())
+        out["netCDF4"]["vars"][name] = entry
 with xr.open_dataset(path) as ds:
     out["xarray"]["time"] = [str(t) for t in ds["time"].values.astype("datetime64[s]")]
-    out["xarray"]["vars"] = {
-        name: {
-            "units": ds[name].attrs.get("units", ds[name].encoding.get("units")),
-            "values": plain(ds[name].values.ravel()),
-        }
-        for name in ds.variables
-        if name != "time"
-    }
+    out["xarray"]["vars"] = {}
+    for name in ds.variables:
+        if name == "time":
+            continue
+        v = ds[name]
+        entry = {"units": v.attrs.get("units", v.encoding.get("units"))}
+        if v.dtype.kind in "SUO":  # char arrays decoded to strings
+            entry["text"] = [s.decode() if isinstance(s, bytes) else str(s) for s in v.values.ravel()]
+        else:
+            entry["values"] = plain(v.values.ravel())
+        out["xarray"]["vars"][name] = entry
 json.dump(out, sys.stdout)
