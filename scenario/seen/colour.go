@@ -109,8 +109,10 @@ func ColourOf(wl, rrs []float64, lo, hi float64) (Colour, error) {
 		return c, fmt.Errorf("seen: R_rs spans [%g, %g] m, not the colour range [%g, %g] m", wl[0], wl[len(wl)-1], lo, hi)
 	}
 	for i, r := range rrs {
-		if !(r >= 0) || math.IsInf(r, 1) {
-			return c, fmt.Errorf("seen: R_rs[%d] = %g sr⁻¹ is outside [0, +∞) sr⁻¹", i, r)
+		// A perfect diffuse reflector has R_rs = 1/π sr⁻¹; 1 sr⁻¹ is a
+		// generous physical bound that also keeps the sums finite.
+		if !(r >= 0 && r <= 1) {
+			return c, fmt.Errorf("seen: R_rs[%d] = %g sr⁻¹ is outside [0, 1] sr⁻¹", i, r)
 		}
 	}
 	var X, Y, Z, norm float64

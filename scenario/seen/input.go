@@ -96,9 +96,14 @@ func checkWavelengths(field string, wl []float64) error {
 	return nil
 }
 
+// MaxCoefficient is the largest absorption, scattering or attenuation
+// coefficient accepted, m⁻¹: far above any natural water (fluid mud reaches
+// ~1e4 m⁻¹), low enough that no product overflows.
+const MaxCoefficient = 1e6
+
 func checkCoef(field string, i int, v float64) error {
-	if !(v >= 0) || math.IsInf(v, 1) {
-		return fmt.Errorf("seen: %s[%d] = %g m⁻¹ is outside [0, +∞) m⁻¹", field, i, v)
+	if !(v >= 0 && v <= MaxCoefficient) {
+		return fmt.Errorf("seen: %s[%d] = %g m⁻¹ is outside [0, %g] m⁻¹", field, i, v, float64(MaxCoefficient))
 	}
 	return nil
 }

@@ -8,7 +8,7 @@ import (
 // KdModel is the semi-analytical model of the diffuse attenuation of
 // downwelling irradiance, averaged over the euphotic layer (Lee, Du & Arnone
 // 2005, J. Geophys. Res. 110:C02016; revised by Lee et al. 2013, J. Geophys.
-// Res. Oceans 118:4241):
+// Res. Oceans 118:4241, citation details from memory):
 //
 //	K_d = (1 + M0·θ_s) a + (1 − Chi·b_bw/b_b) M1 (1 − M2 e^{−M3 a}) b_b,
 //
@@ -51,11 +51,11 @@ var (
 // (1 + M0 θ_s) a, which for the sun at zenith is a, the exact limit for a
 // collimated beam in non-scattering water.
 func (m KdModel) Kd(a, bb, bbw, zenith float64) (float64, Flag, error) {
-	if !(a >= 0) || math.IsInf(a, 1) {
-		return 0, 0, fmt.Errorf("seen: a = %g m⁻¹ is outside [0, +∞) m⁻¹", a)
+	if err := checkScalar("a", a, 0, MaxCoefficient, "m⁻¹"); err != nil {
+		return 0, 0, err
 	}
-	if !(bb >= 0) || math.IsInf(bb, 1) {
-		return 0, 0, fmt.Errorf("seen: b_b = %g m⁻¹ is outside [0, +∞) m⁻¹", bb)
+	if err := checkScalar("b_b", bb, 0, MaxCoefficient, "m⁻¹"); err != nil {
+		return 0, 0, err
 	}
 	if m.Chi != 0 && !(bbw >= 0 && bbw <= bb) {
 		return 0, 0, fmt.Errorf("seen: b_bw = %g m⁻¹ is outside [0, b_b = %g] m⁻¹", bbw, bb)

@@ -29,7 +29,8 @@ type ReflectanceModel struct {
 var (
 	// Gordon1988 is the fit of Gordon, Brown, Evans, Brown, Smith, Baker &
 	// Clark (1988, "A semianalytic radiance model of ocean color", J.
-	// Geophys. Res. 93(D9):10909–10924): g1 = 0.0949, g2 = 0.0794 sr⁻¹.
+	// Geophys. Res. 93(D9):10909–10924): g1 = 0.0949, g2 = 0.0794 sr⁻¹,
+	// read as subsurface r_rs as in Lee et al. (2002).
 	// UMax = 0.25 is from memory (the Monte Carlo simulations behind the fit
 	// covered oceanic waters); check the paper before relying on it.
 	Gordon1988 = ReflectanceModel{Name: "Gordon1988", G1: 0.0949, G2: 0.0794, UMax: 0.25}
@@ -74,8 +75,8 @@ func BelowSurface(Rrs float64) (float64, error) {
 // (m⁻¹), with FlagOutsideFit when u exceeds m.UMax. a + b_b must be
 // positive.
 func (m ReflectanceModel) Subsurface(a, bb float64) (float64, Flag, error) {
-	if !(a >= 0) || !(bb >= 0) || math.IsInf(a, 1) || math.IsInf(bb, 1) || a+bb <= 0 {
-		return 0, 0, fmt.Errorf("seen: a = %g m⁻¹, b_b = %g m⁻¹: need both in [0, +∞) m⁻¹ and a + b_b > 0", a, bb)
+	if !(a >= 0 && a <= MaxCoefficient) || !(bb >= 0 && bb <= MaxCoefficient) || a+bb <= 0 {
+		return 0, 0, fmt.Errorf("seen: a = %g m⁻¹, b_b = %g m⁻¹: need both in [0, %g] m⁻¹ and a + b_b > 0", a, bb, float64(MaxCoefficient))
 	}
 	u := bb / (a + bb)
 	var f Flag

@@ -80,6 +80,14 @@ func SecchiWindow(wl, kd, rrs []float64, lo, hi float64) (Secchi, error) {
 	if !(lo <= hi) {
 		return s, fmt.Errorf("seen: transparent window [%g, %g] m is empty", lo, hi)
 	}
+	for i := range kd {
+		if !(kd[i] >= 0 && kd[i] <= MaxCoefficient) {
+			return s, fmt.Errorf("seen: K_d[%d] = %g m⁻¹ is outside [0, %g] m⁻¹", i, kd[i], float64(MaxCoefficient))
+		}
+		if !(rrs[i] >= 0 && rrs[i] <= 1) {
+			return s, fmt.Errorf("seen: R_rs[%d] = %g sr⁻¹ is outside [0, 1] sr⁻¹", i, rrs[i])
+		}
+	}
 	best := -1
 	for i, w := range wl {
 		if w < lo || w > hi {

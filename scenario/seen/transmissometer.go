@@ -71,10 +71,10 @@ func (t Transmissometer) Read(a, b float64, vsf VSF) (TransmissometerReading, er
 	if err := checkScalar("Transmissometer.AcceptanceHalfAngle", t.AcceptanceHalfAngle, 0, math.Pi/2, "rad"); err != nil {
 		return r, err
 	}
-	if err := checkScalar("a", a, 0, math.MaxFloat64, "m⁻¹"); err != nil {
+	if err := checkScalar("a", a, 0, MaxCoefficient, "m⁻¹"); err != nil {
 		return r, err
 	}
-	if err := checkScalar("b", b, 0, math.MaxFloat64, "m⁻¹"); err != nil {
+	if err := checkScalar("b", b, 0, MaxCoefficient, "m⁻¹"); err != nil {
 		return r, err
 	}
 	if err := vsf.Validate(); err != nil {

@@ -5,7 +5,11 @@ import (
 	"math"
 )
 
-// ISO 7027 geometry used by Turbidimeter.
+// ISO 7027 geometry used by Turbidimeter (ISO 7027-1:2016). The source
+// wavelength and detection angle are as commonly quoted for the standard
+// (from memory; a national laboratory's method page for SS-EN ISO 7027
+// lists an 870 nm, 90° instrument, consistent with them); check the
+// standard's text before relying on the tolerances.
 const (
 	// ISOWavelength is the nominal source wavelength of ISO 7027, m.
 	ISOWavelength = 860e-9
@@ -86,7 +90,7 @@ func (t Turbidimeter) Read(wavelength, c float64, vsf VSF) (TurbidityReading, er
 	if err := checkScalar("wavelength", wavelength, MinWavelength, MaxWavelength, "m"); err != nil {
 		return r, err
 	}
-	if err := checkScalar("c", c, 0, math.MaxFloat64, "m⁻¹"); err != nil {
+	if err := checkScalar("c", c, 0, MaxCoefficient, "m⁻¹"); err != nil {
 		return r, err
 	}
 	if err := checkScalar("Turbidimeter.WaterBeta90", t.WaterBeta90, 0, math.MaxFloat64, "m⁻¹ sr⁻¹"); err != nil {
@@ -102,7 +106,7 @@ func (t Turbidimeter) Read(wavelength, c float64, vsf VSF) (TurbidityReading, er
 	if err := checkScalar("Calibration.Beta90", cal.Beta90, math.SmallestNonzeroFloat64, math.MaxFloat64, "m⁻¹ sr⁻¹"); err != nil {
 		return r, err
 	}
-	if err := checkScalar("Calibration.Attenuation", cal.Attenuation, 0, math.MaxFloat64, "m⁻¹"); err != nil {
+	if err := checkScalar("Calibration.Attenuation", cal.Attenuation, 0, MaxCoefficient, "m⁻¹"); err != nil {
 		return r, err
 	}
 	if err := vsf.Validate(); err != nil {
@@ -125,6 +129,9 @@ func (t Turbidimeter) Read(wavelength, c float64, vsf VSF) (TurbidityReading, er
 	}
 	att := math.Exp(-(c - cal.Attenuation) * t.PathLength)
 	r.Turbidity = cal.Turbidity * r.ParticleBeta90 / cal.Beta90 * att
+	if math.IsInf(r.Turbidity, 0) || math.IsNaN(r.Turbidity) {
+		return TurbidityReading{}, fmt.Errorf("seen: turbidity overflows (β_p(90°) = %g, Calibration.Beta90 = %g m⁻¹ sr⁻¹)", r.ParticleBeta90, cal.Beta90)
+	}
 	if r.Turbidity > NephelometricMax {
 		r.Flags |= FlagAboveNephelometricRange
 	}
