@@ -200,7 +200,7 @@ type Header struct {
 const (
 	maxInt32   = math.MaxInt32
 	maxUint32  = math.MaxUint32
-	maxVsize   = maxUint32 - 3 // largest vsize that is a multiple of 4
+	maxVsize   = maxUint32 - 3 // largest vsize field that is a multiple of 4
 	maxNameLen = 256           // NC_MAX_NAME of netcdf.h
 )
 
@@ -392,6 +392,24 @@ func (h *Header) check() (*layout, error) {
 		}
 		lastFixed = i
 	}
+	// Variable size limit: 2^31 - 4 bytes in CDF-1 and 2^32 - 4 bytes in
+	// CDF-2 (per record for record variables), except for the last
+	// fixed-size variable of a file without record variables, whose vsize
+	// is written as 2^32 - 1 when it does not fit (specification, "Note on
+	// vsize"; the CDF-1 limit is the reference library's, from memory of
+	// its NC_check_vlens).
+	limit := int64(maxVsize)
+	if h.Format == CDF1 {
+		limit = maxInt32 - 3
+	}
+	for i := range h.Vars {
+		if L.vsize[i] > limit {
+			if i == lastFixed && nrec == 0 {
+				continue
+			}
+			return nil, fmt.Errorf("netcdf: variable %q takes %d bytes (per record if a record variable); allowed at most %d in %v unless it is the last variable of a file without record variables", h.Vars[i].Name, L.vsize[i], limit, h.Format)
+		}
+	}
 	for i := range h.Vars {
 		if L.record[i] {
 			continue
@@ -426,16 +444,6 @@ func (h *Header) check() (*layout, error) {
 	}
 	if L.recSize > maxUint32 && h.NumRecs > 1 {
 		return nil, fmt.Errorf("netcdf: a record takes %d bytes; allowed at most %d", L.recSize, int64(maxUint32))
-	}
-	// vsize limit: only the last fixed variable of a file without record
-	// variables may exceed it (its vsize is then written as 2^32 - 1).
-	for i := range h.Vars {
-		if L.vsize[i] > maxVsize {
-			if i == lastFixed && nrec == 0 {
-				continue
-			}
-			return nil, fmt.Errorf("netcdf: variable %q takes %d bytes (per record if a record variable); allowed at most %d unless it is the last variable of a file without record variables", h.Vars[i].Name, L.vsize[i], int64(maxVsize))
-		}
 	}
 	if nrec > 0 {
 		L.fileSize = L.beginRec + int64(h.NumRecs)*L.recSize

@@ -164,6 +164,20 @@ func TestFormatLimits(t *testing.T) {
 	if vs := binary.BigEndian.Uint32(hdr[len(hdr)-12:]); vs != math.MaxUint32 {
 		t.Errorf("vsize of oversized last variable = %#x, want 0xffffffff", vs)
 	}
+	// 2.4e9 bytes is within CDF-2's 2^32 - 4 but over CDF-1's 2^31 - 4
+	// for a variable that is not last.
+	mid := Header{
+		Format: CDF2,
+		Dims:   []Dim{{Name: "n", Len: 300_000_000}, {Name: "m", Len: 2}},
+		Vars:   []Var{{Name: "big", Type: Double, Dims: []string{"n"}}, {Name: "small", Type: Int, Dims: []string{"m"}}},
+	}
+	if _, err := mid.check(); err != nil {
+		t.Errorf("CDF2, 2.4e9-byte variable: %v", err)
+	}
+	mid.Format = CDF1
+	if _, err := mid.check(); err == nil || !strings.Contains(err.Error(), `variable "big" takes 2400000000 bytes`) {
+		t.Errorf("CDF1, 2.4e9-byte variable not last: err = %v", err)
+	}
 	huge.Vars[0], huge.Vars[1] = huge.Vars[1], huge.Vars[0]
 	if _, err := huge.check(); err == nil || !strings.Contains(err.Error(), `variable "h" takes 4800000000 bytes`) {
 		t.Errorf("oversized variable not last: err = %v", err)

@@ -262,6 +262,17 @@ func (d *Dataset) AddCoord(c Coord) {
 		d.fail("coordinate %q: Type %s; allowed Double or Float", c.Name, typ)
 		return
 	}
+	if typ == netcdf.Float {
+		// Rounding to float32 must keep the values distinct and in order.
+		f := make([]float64, len(c.Values))
+		for i, x := range c.Values {
+			f[i] = float64(float32(x))
+		}
+		if i := monotonic(f); i >= 0 {
+			d.fail("coordinate %q: Values[%d] = %g is not strictly monotonic once rounded to float; use Double", c.Name, i, c.Values[i])
+			return
+		}
+	}
 	var attrs []netcdf.Attr
 	attrs = addText(attrs, "standard_name", c.StandardName)
 	attrs = addText(attrs, "long_name", c.LongName)

@@ -288,6 +288,7 @@ func TestDatasetErrors(t *testing.T) {
 	d.AddVar(Var{Name: "w", Dims: []string{"w"}, Units: "m", LongName: "dup"})
 	d.AddVar(Var{Name: "u", Dims: []string{"w"}, LongName: "u"})
 	d.AddLabels(Labels{Name: "pop", Labels: []string{"a", "a"}, LongName: "p"})
+	d.AddCoord(Coord{Name: "f", Values: []float64{1, 1 + 1e-12}, Units: "m", LongName: "f", Type: netcdf.Float})
 	_, err := d.Header()
 	if err == nil {
 		t.Fatal("no error")
@@ -302,6 +303,7 @@ func TestDatasetErrors(t *testing.T) {
 		`variable "u": Units ""`,
 		"Global.Title is required",
 		`labels "pop": label 1 "a" is empty, repeated`,
+		`coordinate "f": Values[1] = 1.000000000001 is not strictly monotonic once rounded to float`,
 	} {
 		if !strings.Contains(err.Error(), want) {
 			t.Errorf("error lacks %q:\n%v", want, err)
