@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 
+	"github.com/murk-optics/murk/mie/kernel"
 	"github.com/murk-optics/murk/scenario/water"
 )
 
@@ -137,6 +138,8 @@ type Spectra struct {
 
 	cos2   []float64      // cos² of each angle
 	optics []water.Optics // workspace for water
+	tmp    []float64      // workspace for slopes
+	kiop   kernel.IOP     // workspace for particle populations
 }
 
 // New returns an empty Spectra on the given grid. Wavelengths must be
@@ -159,7 +162,10 @@ func New(wavelengths, angles []float64) (*Spectra, error) {
 		Angles:      append([]float64(nil), angles...),
 		cos2:        make([]float64, len(angles)),
 		optics:      make([]water.Optics, len(wavelengths)),
+		tmp:         make([]float64, len(wavelengths)),
 	}
+	n, m := len(wavelengths), len(angles)
+	s.kiop = kernel.IOP{A: make([]float64, n), B: make([]float64, n), Bb: make([]float64, n), C: make([]float64, n), VSF: make([]float64, n*m)}
 	for j, t := range angles {
 		if !(t >= 0 && t <= math.Pi) {
 			return nil, fmt.Errorf("iop: angles[%d] = %g rad outside the allowed range [0, π] rad", j, t)

@@ -3,12 +3,14 @@ package iop
 import (
 	"fmt"
 	"math"
+
+	"github.com/murk-optics/murk/mie/kernel"
 )
 
 // PowerLaw is a spectrum X(λ) = Value·(λ/Ref)^(−Slope).
 type PowerLaw struct {
 	Ref   float64 // reference wavelength, m
-	Value float64 // X at Ref, in X's unit
+	Value float64 // X at Ref from the fit, in X's unit
 	Slope float64 // spectral slope γ, dimensionless (positive: X falls with λ)
 	RMS   float64 // root-mean-square residual of ln X, dimensionless
 }
@@ -18,94 +20,56 @@ func (p PowerLaw) At(lambda float64) float64 {
 	return p.Value * math.Pow(lambda/p.Ref, -p.Slope)
 }
 
-// FitPowerLaw fits X(λ) = X0 (λ/ref)^(−γ) to the points (wavelengths[i],
-// values[i]) by ordinary least squares of ln X against ln λ (common
-// practice for the hyperbolic slope of c_p and b_bp; Boss, Twardowski &
-// Herring 2001). It needs at least two distinct wavelengths, every value
-// > 0, and ref > 0; it allocates nothing. Equal weights in log space give
-// every wavelength the same relative importance.
+// FitPowerLaw fits X(λ) = X0 (λ/ref)^(−γ) to all points (wavelengths[i],
+// values[i]) by least squares of ln X against ln λ (the slope comes from
+// kernel.PowerLawSlope; Boss, Twardowski & Herring 2001 use this hyperbolic
+// slope for c_p). X0 is the least-squares intercept for that slope. It
+// needs at least two distinct wavelengths, every value > 0, and ref > 0; it
+// allocates nothing.
 func FitPowerLaw(wavelengths, values []float64, ref float64) (PowerLaw, error) {
-	if len(wavelengths) != len(values) {
-		return PowerLaw{}, fmt.Errorf("iop: power-law fit: %d wavelengths but %d values", len(wavelengths), len(values))
-	}
-	return fitPowerLaw(wavelengths, values, nil, ref)
+	return fitBand(wavelengths, values, math.Inf(-1), math.Inf(1), ref)
 }
 
-// fitPowerLaw fits v1[i] (+ v2[i] if v2 is not nil) against wl[i].
-func fitPowerLaw(wl, v1, v2 []float64, ref float64) (PowerLaw, error) {
-	if len(wl) < 2 {
-		return PowerLaw{}, fmt.Errorf("iop: power-law fit: %d points (need at least 2)", len(wl))
-	}
+func fitBand(wl, v []float64, lo, hi, ref float64) (PowerLaw, error) {
 	if !(ref > 0) || math.IsInf(ref, 0) {
 		return PowerLaw{}, fmt.Errorf("iop: power-law fit: reference wavelength %g m (need a positive finite value in m)", ref)
 	}
-	val := func(i int) float64 {
-		if v2 != nil {
-			return v1[i] + v2[i]
-		}
-		return v1[i]
+	g, err := kernel.PowerLawSlope(wl, v, lo, hi)
+	if err != nil {
+		return PowerLaw{}, fmt.Errorf("iop: %w", err)
 	}
-	// Centre the abscissa for a well-conditioned fit.
-	var mx, my float64
+	// With the slope fixed, the least-squares ln X0 is the band mean of
+	// ln X + γ ln(λ/ref); the residuals follow.
+	var n, sum float64
 	for i, l := range wl {
-		if !(l > 0) || math.IsInf(l, 0) {
-			return PowerLaw{}, fmt.Errorf("iop: power-law fit: wavelength %g m at index %d (need > 0)", l, i)
+		if l >= lo && l <= hi {
+			sum += math.Log(v[i]) + g*math.Log(l/ref)
+			n++
 		}
-		v := val(i)
-		if !(v > 0) || math.IsInf(v, 0) {
-			return PowerLaw{}, fmt.Errorf("iop: power-law fit: value %g at %g m (need a positive finite value: a power law cannot pass through zero)", v, l)
-		}
-		mx += math.Log(l / ref)
-		my += math.Log(v)
 	}
-	n := float64(len(wl))
-	mx /= n
-	my /= n
-	var sxx, sxy float64
-	for i, l := range wl {
-		dx := math.Log(l/ref) - mx
-		sxx += dx * dx
-		sxy += dx * (math.Log(val(i)) - my)
-	}
-	if sxx == 0 {
-		return PowerLaw{}, fmt.Errorf("iop: power-law fit: all wavelengths equal (%g m)", wl[0])
-	}
-	beta := sxy / sxx // d ln X / d ln λ
-	alpha := my - beta*mx
+	lnX0 := sum / n
 	var ss float64
 	for i, l := range wl {
-		r := math.Log(val(i)) - alpha - beta*math.Log(l/ref)
-		ss += r * r
+		if l >= lo && l <= hi {
+			r := math.Log(v[i]) + g*math.Log(l/ref) - lnX0
+			ss += r * r
+		}
 	}
-	return PowerLaw{Ref: ref, Value: math.Exp(alpha), Slope: -beta, RMS: math.Sqrt(ss / n)}, nil
+	return PowerLaw{Ref: ref, Value: math.Exp(lnX0), Slope: g, RMS: math.Sqrt(ss / n)}, nil
 }
 
 // Slope fits a power law to quantity q of component c over the wavelengths
 // of s inside [lo, hi] (m), with reference wavelength ref (m). It allocates
-// nothing.
+// nothing (c's values are staged in a workspace of s, so Slope is not safe
+// for concurrent use on one Spectra).
 func (s *Spectra) Slope(c *Component, q Quantity, lo, hi, ref float64) (PowerLaw, error) {
-	i0, i1 := -1, -1
-	for i, l := range s.Wavelengths {
-		if l >= lo && l <= hi {
-			if i0 < 0 {
-				i0 = i
-			}
-			i1 = i + 1
-		}
+	if err := s.sized(c); err != nil {
+		return PowerLaw{}, err
 	}
-	if i0 < 0 || i1-i0 < 2 {
-		return PowerLaw{}, fmt.Errorf("iop: %s slope of %q: band [%g, %g] m holds fewer than 2 grid wavelengths", q, c.Name, lo, hi)
+	s.tmp = c.Values(s.tmp, q)
+	p, err := fitBand(s.Wavelengths, s.tmp, lo, hi, ref)
+	if err != nil {
+		return PowerLaw{}, fmt.Errorf("iop: %s slope of %q over [%g, %g] m: %w", q, c.Name, lo, hi, err)
 	}
-	wl := s.Wavelengths[i0:i1]
-	switch q {
-	case Absorption:
-		return fitPowerLaw(wl, c.A[i0:i1], nil, ref)
-	case Scattering:
-		return fitPowerLaw(wl, c.B[i0:i1], nil, ref)
-	case Backscattering:
-		return fitPowerLaw(wl, c.Bb[i0:i1], nil, ref)
-	case Attenuation:
-		return fitPowerLaw(wl, c.A[i0:i1], c.B[i0:i1], ref)
-	}
-	return PowerLaw{}, fmt.Errorf("iop: unknown quantity %d", uint8(q))
+	return p, nil
 }
