@@ -65,6 +65,12 @@ type BackscatterReading struct {
 	ParticleBb float64
 	// Bb is the total b_b = b_bp + b_bw, m⁻¹.
 	Bb float64
+	// VSFBb is the total b_b integrated from the VSF itself,
+	// 2π ∫_{90°}^{180°} β sin θ dθ, m⁻¹, when the VSF is sampled over the
+	// whole backward hemisphere (HasVSFBb); comparing it with Bb shows the
+	// error of the single-angle method for this particle population.
+	VSFBb    float64
+	HasVSFBb bool
 	// Flags: FlagNegativeParticle.
 	Flags Flag
 }
@@ -98,5 +104,31 @@ func (s BackscatterSensor) Read(vsf VSF) (BackscatterReading, error) {
 	r.Chi, r.ChiUncertainty = chi, sig
 	r.ParticleBb = 2 * math.Pi * chi * r.ParticleBeta
 	r.Bb = r.ParticleBb + s.WaterBb
+	if v, err := vsf.Backscattering(); err == nil {
+		r.VSFBb, r.HasVSFBb = v, true
+	}
 	return r, nil
+}
+
+// Backscattering returns b_b = 2π ∫_{π/2}^{π} β(θ) sin θ dθ (m⁻¹),
+// integrated with the VSF's interpolation. The VSF must be sampled from at
+// most π/2 to π; otherwise an error is returned.
+func (v VSF) Backscattering() (float64, error) {
+	if err := v.Validate(); err != nil {
+		return 0, err
+	}
+	if v.Angle[0] > math.Pi/2 || v.Angle[len(v.Angle)-1] < math.Pi {
+		return 0, fmt.Errorf("seen: VSF sampled over [%g, %g] rad does not cover the backward hemisphere [π/2, π]", v.Angle[0], v.Angle[len(v.Angle)-1])
+	}
+	var total float64
+	for i := 0; i+1 < len(v.Angle); i++ {
+		lo, hi := v.Angle[i], v.Angle[i+1]
+		if hi <= math.Pi/2 {
+			continue
+		}
+		lo = math.Max(lo, math.Pi/2)
+		k, power := v.exponent(i)
+		total += 2 * math.Pi * v.segmentGL(i, k, power, lo, hi)
+	}
+	return total, nil
 }

@@ -95,9 +95,11 @@ func ExampleBackscatterSensor_Read() {
 	}
 	fmt.Printf("β(124°) = %.4f m⁻¹ sr⁻¹, χ_p = %.3f ± %.1f %%\n", r.Beta, r.Chi, 100*r.ChiUncertainty)
 	fmt.Printf("b_bp = %.4f m⁻¹, b_b = %.4f m⁻¹\n", r.ParticleBb, r.Bb)
+	fmt.Printf("b_b integrated from the VSF = %.4f m⁻¹\n", r.VSFBb)
 	// Output:
 	// β(124°) = 0.0204 m⁻¹ sr⁻¹, χ_p = 1.119 ± 3.7 %
 	// b_bp = 0.1430 m⁻¹, b_b = 0.1440 m⁻¹
+	// b_b integrated from the VSF = 0.1532 m⁻¹
 }
 
 // An ISO 7027 turbidimeter calibrated on a standard of 40 FNU whose β(90°)
