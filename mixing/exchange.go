@@ -76,6 +76,41 @@ func HydraulicLimit(qR, h1, h2, gp float64) float64 {
 	return (-b + math.Sqrt(b*b-4*a*c)) / (2 * a)
 }
 
+// MaximalExchange returns the largest subcritical landward transport per unit
+// width over all interface positions a = h1/h ∈ [amin, 1 − amin] (maximal
+// two-layer exchange, Armi & Farmer 1986) and the interface fraction a that
+// achieves it, by golden-section search on HydraulicLimit (unimodal in a).
+// h > 0 (m), gp ≥ 0 (m s⁻²), 0 < amin < 0.5.
+func MaximalExchange(qR, h, gp, amin float64) (q, a float64) {
+	lo, hi := amin, 1-amin
+	if !(gp > 0) {
+		return 0, 0.5
+	}
+	// below a_c = (q_R²/(g'h³))^(1/3) the upper layer is supercritical on its own
+	if ac := math.Cbrt(qR * qR / (gp * h * h * h)); ac >= hi {
+		return 0, hi
+	} else if ac > lo {
+		lo = ac
+	}
+	const r = 0.6180339887498949
+	f := func(a float64) float64 { return HydraulicLimit(qR, a*h, (1-a)*h, gp) }
+	x1, x2 := hi-r*(hi-lo), lo+r*(hi-lo)
+	f1, f2 := f(x1), f(x2)
+	for i := 0; i < 40; i++ {
+		if f1 < f2 {
+			lo, x1, f1 = x1, x2, f2
+			x2 = lo + r*(hi-lo)
+			f2 = f(x2)
+		} else {
+			hi, x2, f2 = x2, x1, f1
+			x1 = hi - r*(hi-lo)
+			f1 = f(x1)
+		}
+	}
+	a = 0.5 * (lo + hi)
+	return f(a), a
+}
+
 // Knudsen returns the tidally averaged landward (qIn) and seaward (qOut)
 // exchange transports implied by steady water and salt balances,
 // Q_out = Q_R·s_in/(s_in − s_out), Q_in = Q_R·s_out/(s_in − s_out)

@@ -231,9 +231,8 @@ func (m *Model) exchange() {
 		switch {
 		case j == m.n:
 		case j == 0:
-			if m.n > 1 {
-				sx = (m.sfilt[0] - m.sfilt[1]) / m.dx
-			}
+			// the sea as a ghost cell one cell length outside the mouth
+			sx = (m.cfg.Ocean.Salinity - m.sfilt[0]) / m.dx
 		default:
 			sx = (m.sfilt[j-1] - m.sfilt[j]) / m.dx
 		}
@@ -252,9 +251,15 @@ func (m *Model) exchange() {
 			} else if j == 0 {
 				ds = m.dsfilt[0]
 			}
-			ds = math.Max(ds, StratificationHR(p, hf, 1, beta))
-			lim := bf * HydraulicLimit(m.qr/bf, -zi*hf, (1+zi)*hf, gravity*beta*ds)
-			q2 = math.Min(q2, lim)
+			// density contrast: at least the Hansen–Rattray estimate, at most sea against river water
+			ds = math.Min(math.Max(ds, StratificationHR(p, hf, 1, beta)), m.cfg.Ocean.Salinity)
+			gp := gravity * beta * ds
+			if lim := bf * HydraulicLimit(m.qr/bf, -zi*hf, (1+zi)*hf, gp); q2 > lim {
+				// hydraulic control: the interface moves to the position of maximal exchange
+				qm, a := MaximalExchange(m.qr/bf, hf, gp, fmin)
+				q2 = math.Min(q2, bf*qm)
+				zi = -a
+			}
 		}
 		m.q2res[j], m.f2f[j] = q2, 1+zi
 		// 1/7-power velocity profile u ∝ (z_b/H)^(1/7) (common practice):
@@ -328,7 +333,7 @@ func (m *Model) kinematics() {
 // The model reads it from a 0.1 °C table over [−2, 40] °C (interpolation error < 1e-5 relative).
 func viscosity(tc float64) float64 {
 	f := (tc - viscT0) / viscDT
-	if f <= 0 {
+	if !(f > 0) {
 		return viscTable[0]
 	}
 	i := int(f)
@@ -441,6 +446,9 @@ func (m *Model) Step() error {
 	end := m.cfg.Run.Duration
 	if m.t >= end {
 		return nil
+	}
+	if m.acc.done {
+		m.acc.reset() // the caller (Run) has had the finished cycle
 	}
 	m.qr = m.river(m.t)
 	m.boundaries()

@@ -89,9 +89,7 @@ func (m *Model) Run() (*Result, error) {
 			k++
 		}
 		if m.acc.done {
-			s := m.acc.snapshot(m)
-			res.Cycles = append(res.Cycles, s)
-			m.acc.reset()
+			res.Cycles = append(res.Cycles, m.acc.snapshot(m))
 		}
 	}
 	for i := range res.Snapshots {
