@@ -104,8 +104,8 @@ func (s BackscatterSensor) Read(vsf VSF) (BackscatterReading, error) {
 	r.Chi, r.ChiUncertainty = chi, sig
 	r.ParticleBb = 2 * math.Pi * chi * r.ParticleBeta
 	r.Bb = r.ParticleBb + s.WaterBb
-	if v, err := vsf.Backscattering(); err == nil {
-		r.VSFBb, r.HasVSFBb = v, true
+	if vsf.Angle[0] <= math.Pi/2 && vsf.Angle[len(vsf.Angle)-1] >= math.Pi {
+		r.VSFBb, r.HasVSFBb = vsf.backward(), true
 	}
 	return r, nil
 }
@@ -120,6 +120,11 @@ func (v VSF) Backscattering() (float64, error) {
 	if v.Angle[0] > math.Pi/2 || v.Angle[len(v.Angle)-1] < math.Pi {
 		return 0, fmt.Errorf("seen: VSF sampled over [%g, %g] rad does not cover the backward hemisphere [π/2, π]", v.Angle[0], v.Angle[len(v.Angle)-1])
 	}
+	return v.backward(), nil
+}
+
+// backward integrates a validated VSF that covers [π/2, π].
+func (v VSF) backward() float64 {
 	var total float64
 	for i := 0; i+1 < len(v.Angle); i++ {
 		lo, hi := v.Angle[i], v.Angle[i+1]
@@ -130,5 +135,5 @@ func (v VSF) Backscattering() (float64, error) {
 		k, power := v.exponent(i)
 		total += 2 * math.Pi * v.segmentGL(i, k, power, lo, hi)
 	}
-	return total, nil
+	return total
 }
