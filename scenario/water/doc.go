@@ -30,8 +30,8 @@
 //     of pure water. II. Integrating cavity measurements", Appl. Opt.
 //     36(33):8710–8723 (2.5 nm grid).
 //   - 700 < λ ≤ 900 nm: Segelstein (1981), "The complex refractive index of
-//     water", M.Sc. thesis, University of Missouri–Kansas City, as
-//     a = 4πk/λ with k interpolated linearly in λ.
+//     water", M.Sc. thesis, as a = 4πk/λ with k interpolated linearly
+//     in λ.
 //
 // Morel et al. (2007) built their column from Pope & Fry at and above
 // 420 nm, so the join at 420 nm is continuous (both give 0.00454 m⁻¹). The

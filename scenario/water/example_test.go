@@ -58,3 +58,17 @@ func ExampleCDOMMixing() {
 	// S = 17: a_g(440) = 2.025 m-1
 	// S = 34: a_g(440) = 0.050 m-1
 }
+
+func ExampleCellIndex() {
+	// Quell estuary diatoms: 10 µm cells holding 3 kg m⁻³ chlorophyll
+	// (3e6 mg m⁻³) in water of 5 psu at 15 °C, at Chl = 4 mg m⁻³.
+	const lambda = 440e-9
+	p := water.BricaudDefault()
+	aCell, _ := p.Specific(lambda, 4*water.MilligramPerCubicMetre) // m² kg⁻¹
+	nw, _ := water.RefractiveIndex(lambda, water.Medium{Salinity: 5, TemperatureC: 15})
+	aSol, _ := water.UnpackagedSpecific(aCell, 3, 10e-6)
+	k, _ := water.CellIndex(aCell, 3, 10e-6, lambda, nw)
+	fmt.Printf("a*_cell = %.4f m2 mg-1, a*_sol = %.4f m2 mg-1, k = %.2e\n", aCell/1e6, aSol/1e6, k)
+	// Output:
+	// a*_cell = 0.0244 m2 mg-1, a*_sol = 0.0350 m2 mg-1, k = 2.74e-03
+}

@@ -249,9 +249,9 @@ func UnpackagedSpecific(aCell, ci, d float64) (float64, error) {
 // A Mie calculation with this k for a weakly refracting cell then absorbs
 // as the bulk model says, to the accuracy of the anomalous-diffraction
 // approximation behind Q_a: measured against Mie, 0.2 % at m = 1.001 and
-// x = 1000, but about 6 % too little absorption at m = 1.03 and x ≈ 100
-// (a 10 µm cell at 440 nm), where refraction lengthens the paths inside the
-// cell. Errors as UnpackagedSpecific, and for nMedium outside [1, 2].
+// x = 1000; at m = 1.03 and x ≈ 100 (a 10 µm cell at 440 nm) the Mie cell
+// absorbs about 6 % more than asked, because refraction lengthens the paths
+// inside it. Errors as UnpackagedSpecific, and for nMedium outside [1, 2].
 func CellIndex(aCell, ci, d, lambda, nMedium float64) (float64, error) {
 	if err := checkWavelength("wavelength", lambda, 200, 2000); err != nil {
 		return 0, err

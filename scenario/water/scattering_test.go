@@ -113,8 +113,8 @@ func TestScatterSalinitySteepensSlope(t *testing.T) {
 
 func TestVSFIntegratesToB(t *testing.T) {
 	// Identity: b = 2π∫β(θ) sinθ dθ over [0, π] and b_b the same over
-	// [π/2, π]. β is a polynomial of degree 3 in cosθ, so 4-point
-	// Gauss–Legendre in μ = cosθ is exact to rounding.
+	// [π/2, π]. β is a polynomial of degree 2 in μ = cosθ, so 4-point
+	// Gauss–Legendre in μ is exact to rounding.
 	sc, _ := ScatterNM(532, Medium{Salinity: 30, TemperatureC: 12}, 0)
 	f := func(mu float64) float64 { return 2 * math.Pi * sc.VSF(math.Acos(mu)) }
 	b := quad.Fixed(f, -1, 1, 4, quad.Legendre{}, 0)

@@ -145,6 +145,5 @@ var PopeFry1997 = mustTable("Pope & Fry (1997) Appl. Opt. 36:8710", "pope_fry_19
 var Morel2007 = mustTable("Morel et al. (2007) Limnol. Oceanogr. 52:217, Table 2a", "morel2007_table2a.csv", morel2007CSV, 0, 1, 1, false)
 
 // Segelstein1981 is the imaginary index k of water compiled by Segelstein
-// (1981, M.Sc. thesis, University of Missouri–Kansas City), 650–920 nm at
-// 25 °C; At returns a = 4πk/λ in m⁻¹.
+// (1981, M.Sc. thesis), 650–920 nm at 25 °C; At returns a = 4πk/λ in m⁻¹.
 var Segelstein1981 = mustTable("Segelstein (1981) M.Sc. thesis", "segelstein_1981_nk_650_1000nm.csv", segelsteinCSV, 0, 2, 1000, true)
