@@ -18,6 +18,7 @@ type decoder struct {
 	dir  string  // directory for relative paths
 	kind docKind // which document is being read
 	errs ErrorList
+	seen map[Error]bool // reported errors, to report each once
 	// pos remembers the node of each decoded path, for cross-field checks
 	// made after decoding.
 	pos map[string]*yaml.Node
@@ -28,6 +29,15 @@ func (d *decoder) add(n *yaml.Node, path, value, problem, allowed string) {
 	if n != nil {
 		e.Line, e.Column = n.Line, n.Column
 	}
+	// A value shared by several fields (a closures default merged into
+	// every class) is reported once.
+	if d.seen[*e] {
+		return
+	}
+	if d.seen == nil {
+		d.seen = map[Error]bool{}
+	}
+	d.seen[*e] = true
 	d.errs = append(d.errs, e)
 }
 
@@ -283,7 +293,11 @@ func (d *decoder) quantityUnit(n *yaml.Node, path string, k kind, r interval) (f
 	}
 	v, u, err := parseWith(n.Value, k)
 	if err != nil {
-		d.add(n, path, n.Value, err.Error(), "")
+		allowed := ""
+		if k.show != "" {
+			allowed = r.describe(&k)
+		}
+		d.add(n, path, n.Value, err.Error(), allowed)
 		return 0, unitDef{}, false
 	}
 	if !r.contains(v) {

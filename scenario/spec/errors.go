@@ -21,7 +21,11 @@ type Error struct {
 
 func (e *Error) Error() string {
 	var b strings.Builder
-	fmt.Fprintf(&b, "%s:%d:%d: ", e.File, e.Line, e.Column)
+	if e.Column > 0 {
+		fmt.Fprintf(&b, "%s:%d:%d: ", e.File, e.Line, e.Column)
+	} else {
+		fmt.Fprintf(&b, "%s:%d: ", e.File, e.Line) // YAML syntax errors have no column
+	}
 	if e.Path != "" {
 		b.WriteString(e.Path)
 		b.WriteString(": ")

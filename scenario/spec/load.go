@@ -9,6 +9,7 @@ import (
 	"os"
 	"path/filepath"
 	"regexp"
+	"sort"
 	"strconv"
 	"strings"
 
@@ -136,6 +137,14 @@ func parse(name string, data []byte, kind docKind) (Scenario, ErrorList) {
 		return Scenario{}, d.errs
 	}
 	s := d.document(root, kind)
+	// report in document order; problems at one node keep their order
+	sort.SliceStable(d.errs, func(i, j int) bool {
+		a, b := d.errs[i], d.errs[j]
+		if a.Line != b.Line {
+			return a.Line < b.Line
+		}
+		return a.Column < b.Column
+	})
 	return s, d.errs
 }
 
@@ -256,6 +265,13 @@ func (d *decoder) estuary(top *object, e *Estuary) {
 	if n := top.get("closures"); n != nil {
 		e.Closures = d.closures(n, "closures")
 	}
+	for i := range e.Classes {
+		e.Classes[i].Bed = e.Classes[i].Bed.Merge(e.Closures.Bed)
+		d.checkBed(e.Classes[i].Bed, index("sediment_classes", i))
+	}
+	if len(e.Classes) == 0 {
+		d.checkBed(e.Closures.Bed, "closures")
+	}
 	if n := top.req("run", "duration, output_interval and optionally spin_up and stations"); n != nil {
 		e.Run = d.run(n, "run", e.Geometry.Length)
 	}
@@ -276,7 +292,7 @@ func (d *decoder) geometry(n *yaml.Node, path string) Geometry {
 	o := d.object(n, path, "length", "cells", "width", "depth", "table")
 	var g Geometry
 	g.Length, _ = d.quantity(o.req("length", "a length such as \"80 km\""), o.at("length"), kLength, closed(500, 1e6))
-	g.Cells, _ = d.integer(o.req("cells", "integer 4 ≤ value ≤ 10000"), o.at("cells"), 4, 10000)
+	g.Cells, _ = d.integer(o.req("cells", "integer 4 ≤ value ≤ 5000"), o.at("cells"), 4, 5000)
 	if o.has("table") {
 		g.Shape = ShapeTable
 		for _, k := range []string{"width", "depth"} {
@@ -353,7 +369,7 @@ func (d *decoder) river(n *yaml.Node, path string, classes []SedimentClass) Rive
 				ro := d.object(cn, p, "a", "b", "reference_discharge")
 				s := Supply{Kind: SupplyRating, QRef: 1}
 				s.A, _ = d.quantity(ro.req("a", "a concentration such as \"20 g/m3\""), ro.at("a"), kMassConc, closed(0, 100))
-				s.B, _ = d.number(ro.req("b", "exponent 0 ≤ value ≤ 3"), ro.at("b"), closed(0, 3))
+				s.B, _ = d.number(ro.req("b", "exponent −2 ≤ value ≤ 3"), ro.at("b"), closed(-2, 3))
 				if qn := ro.get("reference_discharge"); qn != nil {
 					s.QRef, _ = d.quantity(qn, ro.at("reference_discharge"), kDischarge, openLo(0, 1e6))
 				}
@@ -411,13 +427,14 @@ func (d *decoder) signal(n *yaml.Node, path string, k kind, r interval) Signal {
 	if !sorted {
 		return s
 	}
-	// Gap check: default maximum gap is twice the median sampling
-	// interval, so that one missing sample in a regular record is caught.
+	// Gap check: default maximum gap is 1.5 times the median sampling
+	// interval, so that one missing sample in a regular record (a gap of
+	// twice the interval) is caught.
 	steps := make([]float64, len(s.Times)-1)
 	for i := range steps {
 		steps[i] = s.Times[i+1] - s.Times[i]
 	}
-	maxGap := 2 * sortedCopy(steps)[len(steps)/2]
+	maxGap := 1.5 * sortedCopy(steps)[len(steps)/2]
 	if gn := o.get("max_gap"); gn != nil {
 		g, ok := d.quantity(gn, o.at("max_gap"), kShortTime, openLo(0, 3650*86400))
 		if !ok {
@@ -425,6 +442,7 @@ func (d *decoder) signal(n *yaml.Node, path string, k kind, r interval) Signal {
 		}
 		maxGap = g
 	}
+	s.MaxGap = maxGap
 	for i, st := range steps {
 		if st > maxGap {
 			d.addAt(index(o.at("series"), i+1)+".time", fmt.Sprintf("gap of %s after the previous sample", formatIn(st, kShortTime)),
@@ -488,8 +506,8 @@ func (d *decoder) ocean(n *yaml.Node, path string, classes []SedimentClass) Ocea
 }
 
 func (d *decoder) closures(n *yaml.Node, path string) Closures {
-	o := d.object(n, path, "drag_coefficient", "mixing_coefficient", "entrainment_coefficient",
-		"erosion_rate", "critical_stress_erosion", "critical_stress_deposition", "bed_inventory")
+	o := d.object(n, path, append([]string{"drag_coefficient", "mixing_coefficient", "background_mixing",
+		"dispersion_coefficient", "interfacial_friction"}, bedKeys...)...)
 	var c Closures
 	num := func(key string, r interval) Override {
 		if v := o.get(key); v != nil {
@@ -498,6 +516,22 @@ func (d *decoder) closures(n *yaml.Node, path string) Closures {
 		}
 		return Override{}
 	}
+	c.DragCoefficient = num("drag_coefficient", closed(1e-4, 0.05))
+	c.MixingCoefficient = num("mixing_coefficient", closed(1e-4, 1))
+	if v := o.get("background_mixing"); v != nil {
+		x, ok := d.quantity(v, o.at("background_mixing"), kDiffusivity, closed(0, 1))
+		c.BackgroundMixing = Override{Value: x, Set: ok}
+	}
+	c.DispersionCoefficient = num("dispersion_coefficient", closed(0, 1))
+	c.InterfacialFriction = num("interfacial_friction", closed(0, 0.05))
+	c.Bed = d.bed(o)
+	return c
+}
+
+var bedKeys = []string{"erosion_rate", "critical_stress_erosion", "critical_stress_deposition", "bed_inventory"}
+
+// bed reads the bed-exchange keys of a closures or sediment-class mapping.
+func (d *decoder) bed(o *object) BedParams {
 	qty := func(key string, k kind, r interval) Override {
 		if v := o.get(key); v != nil {
 			x, ok := d.quantity(v, o.at(key), k, r)
@@ -505,21 +539,26 @@ func (d *decoder) closures(n *yaml.Node, path string) Closures {
 		}
 		return Override{}
 	}
-	c.DragCoefficient = num("drag_coefficient", closed(1e-4, 0.05))
-	c.MixingCoefficient = num("mixing_coefficient", closed(1e-4, 1))
-	c.EntrainmentCoefficient = num("entrainment_coefficient", closed(0, 1))
-	c.ErosionRate = qty("erosion_rate", kMassFlux, closed(0, 0.1))
-	c.CriticalStressErosion = qty("critical_stress_erosion", kStress, closed(0, 10))
-	c.CriticalStressDeposition = qty("critical_stress_deposition", kStress, closed(0, 10))
-	c.BedInventory = qty("bed_inventory", kArealMass, closed(0, 1e5))
-	// Deposition cannot need a higher stress threshold than erosion
-	// (Krone 1962 / Partheniades 1965 framework: τ_cd ≤ τ_ce).
-	if c.CriticalStressErosion.Set && c.CriticalStressDeposition.Set &&
-		c.CriticalStressDeposition.Value > c.CriticalStressErosion.Value {
-		d.addAt(o.at("critical_stress_deposition"), "the deposition threshold exceeds the erosion threshold",
-			"at most critical_stress_erosion = "+formatIn(c.CriticalStressErosion.Value, kStress))
+	var b BedParams
+	b.ErosionRate = qty("erosion_rate", kMassFlux, closed(0, 0.1))
+	b.CriticalStressErosion = qty("critical_stress_erosion", kStress, openLo(0, 10))
+	b.CriticalStressDeposition = qty("critical_stress_deposition", kStress, closed(0, 10))
+	b.BedInventory = qty("bed_inventory", kArealMass, closed(0, 1e5))
+	return b
+}
+
+// checkBed reports a deposition threshold above the erosion threshold: in
+// the Krone (1962) / Partheniades (1965) framework τ_cd ≤ τ_ce.
+func (d *decoder) checkBed(b BedParams, path string) {
+	if b.CriticalStressErosion.Set && b.CriticalStressDeposition.Set &&
+		b.CriticalStressDeposition.Value > b.CriticalStressErosion.Value {
+		p := join(path, "critical_stress_deposition")
+		if d.pos[p] == nil {
+			p = "closures.critical_stress_deposition"
+		}
+		d.addAt(p, "the deposition threshold exceeds the erosion threshold",
+			"at most critical_stress_erosion = "+formatIn(b.CriticalStressErosion.Value, kStress))
 	}
-	return c
 }
 
 // ---- sediment classes, run ------------------------------------------------------
@@ -530,8 +569,9 @@ func (d *decoder) classes(n *yaml.Node, path string) []SedimentClass {
 	seen := map[string]bool{}
 	for i, it := range items {
 		p := index(path, i)
-		o := d.object(it, p, "name", "settling_velocity")
+		o := d.object(it, p, append([]string{"name", "settling_velocity"}, bedKeys...)...)
 		var c SedimentClass
+		c.Bed = d.bed(o)
 		if nn := o.req("name", "a name such as fine_mud"); nn != nil {
 			if name, ok := d.name(nn, o.at("name")); ok {
 				if seen[name] {

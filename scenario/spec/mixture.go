@@ -259,7 +259,7 @@ func (d *decoder) populations(n *yaml.Node, path string, kind docKind, classes [
 			pop.Composition, _ = d.text(cn, o.at("composition"))
 		}
 		pop.Density, _ = d.quantity(o.req("density", "a density such as \"2650 kg/m3\""), o.at("density"), kDensity, closed(800, 6000))
-		if rn := o.req("refractive_index", "{model: constant|table|exponential, relative_to: water|vacuum, ...}"); rn != nil {
+		if rn := o.req("refractive_index", "{model: constant|table|smooth, relative_to: water|vacuum, ...}"); rn != nil {
 			pop.Index = d.index(rn, o.at("refractive_index"))
 		}
 		if sn := o.req("size", "{kind: junge|lognormal|table, ...}"); sn != nil {
@@ -382,44 +382,49 @@ func (d *decoder) concentration(n *yaml.Node, path string) Concentration {
 
 // index reads a refractive index.
 func (d *decoder) index(n *yaml.Node, path string) RefractiveIndex {
-	o := d.object(n, path, "model", "relative_to", "n", "k", "table", "k_ref", "wavelength_ref", "k_slope")
+	o := d.object(n, path, "model", "relative_to", "n", "k", "table",
+		"wavelength_ref", "cauchy_b", "k_ref", "k_slope", "k_floor")
 	var ri RefractiveIndex
 	if rn := o.req("relative_to", "water or vacuum"); rn != nil {
 		m, _ := d.choice(rn, o.at("relative_to"), string(RelativeToWater), string(RelativeToVacuum))
 		ri.RelativeTo = Medium(m)
 	}
-	mn := o.req("model", "constant, table, exponential")
+	mn := o.req("model", "constant, table, smooth")
 	if mn == nil {
 		return ri
 	}
-	m, ok := d.choice(mn, o.at("model"), string(IndexConstant), string(IndexTable), string(IndexExponential))
+	m, ok := d.choice(mn, o.at("model"), string(IndexConstant), string(IndexTable), string(IndexSmooth))
 	if !ok {
 		return ri
 	}
 	ri.Model = IndexModel(m)
 	want := map[IndexModel][]string{
-		IndexConstant:    {"n", "k"},
-		IndexTable:       {"table"},
-		IndexExponential: {"n", "k_ref", "wavelength_ref", "k_slope"},
+		IndexConstant: {"n", "k"},
+		IndexTable:    {"table"},
+		IndexSmooth:   {"n", "wavelength_ref", "cauchy_b", "k_ref", "k_slope", "k_floor"},
 	}[ri.Model]
-	for _, key := range []string{"n", "k", "table", "k_ref", "wavelength_ref", "k_slope"} {
+	for _, key := range []string{"n", "k", "table", "wavelength_ref", "cauchy_b", "k_ref", "k_slope", "k_floor"} {
 		if o.has(key) && !contains(want, key) {
 			d.add(keyNode(n, key), o.at(key), "", "does not apply to model "+m, "keys model, relative_to"+prefixList(want))
 		}
 	}
-	nr := closed(0.5, 3.5) // real part; Mie domain of package mie is 0.5 … 3 for relative indices
-	kr := closed(0, 10)
 	switch ri.Model {
 	case IndexConstant:
-		ri.N, _ = d.number(o.req("n", "real part 0.5 ≤ value ≤ 3.5"), o.at("n"), nr)
+		ri.N, _ = d.number(o.req("n", "real part 0.5 ≤ value ≤ 3.5"), o.at("n"), indexRealRange)
 		if kn := o.get("k"); kn != nil {
-			ri.K, _ = d.number(kn, o.at("k"), kr)
+			ri.K, _ = d.number(kn, o.at("k"), indexImagRange)
 		}
-	case IndexExponential:
-		ri.N, _ = d.number(o.req("n", "real part 0.5 ≤ value ≤ 3.5"), o.at("n"), nr)
-		ri.KRef, _ = d.number(o.req("k_ref", "imaginary part at wavelength_ref"), o.at("k_ref"), kr)
+	case IndexSmooth:
+		ri.N, _ = d.number(o.req("n", "real part 0.5 ≤ value ≤ 3.5"), o.at("n"), indexRealRange)
 		ri.WavelengthRef, _ = d.quantity(o.req("wavelength_ref", "a wavelength such as \"440 nm\""), o.at("wavelength_ref"), kWavelength, closed(300e-9, 1000e-9))
+		if bn := o.get("cauchy_b"); bn != nil {
+			ri.CauchyB, _ = d.quantity(bn, o.at("cauchy_b"), kCauchy, closed(-0.1e-12, 0.1e-12))
+		}
+		ri.KRef, _ = d.number(o.req("k_ref", "imaginary part at wavelength_ref, 0 ≤ value ≤ 10"), o.at("k_ref"), indexImagRange)
 		ri.KSlope, _ = d.quantity(o.req("k_slope", "a spectral slope such as \"0.011 1/nm\""), o.at("k_slope"), kSlope, closed(0, 0.1e9))
+		if fn := o.get("k_floor"); fn != nil {
+			ri.KFloor, _ = d.number(fn, o.at("k_floor"), indexImagRange)
+		}
 	case IndexTable:
 		tp := o.at("table")
 		items := d.list(o.req("table", "a list of {wavelength, n, k}"), tp, 2, "rows {wavelength, n, k}")
@@ -428,8 +433,8 @@ func (d *decoder) index(n *yaml.Node, path string) RefractiveIndex {
 			p := index(tp, i)
 			ro := d.object(it, p, "wavelength", "n", "k")
 			w, ok1 := d.quantity(ro.req("wavelength", "a wavelength such as \"500 nm\""), ro.at("wavelength"), kWavelength, closed(300e-9, 1000e-9))
-			nn, ok2 := d.number(ro.req("n", "real part 0.5 ≤ value ≤ 3.5"), ro.at("n"), nr)
-			kk, ok3 := d.number(ro.req("k", "imaginary part 0 ≤ value ≤ 10"), ro.at("k"), kr)
+			nn, ok2 := d.number(ro.req("n", "real part 0.5 ≤ value ≤ 3.5"), ro.at("n"), indexRealRange)
+			kk, ok3 := d.number(ro.req("k", "imaginary part 0 ≤ value ≤ 10"), ro.at("k"), indexImagRange)
 			good = good && ok1 && ok2 && ok3
 			ri.Wavelengths = append(ri.Wavelengths, w)
 			ri.NTable = append(ri.NTable, nn)
@@ -444,6 +449,14 @@ func (d *decoder) index(n *yaml.Node, path string) RefractiveIndex {
 	}
 	return ri
 }
+
+// Refractive index ranges: the real part spans bubbles-in-water (< 1
+// relative) to dense minerals (≈ 2.5–3 absolute); package mie recommends
+// 0.5 ≤ n ≤ 3 and accepts 0 ≤ k ≤ 10.
+var (
+	indexRealRange = closed(0.5, 3.5)
+	indexImagRange = closed(0, 10)
+)
 
 var diameterRange = closed(1e-8, 5e-3) // 10 nm … 5 mm
 
@@ -555,7 +568,7 @@ func (d *decoder) cell(n *yaml.Node, path string) CellParams {
 		c.Structure = CellStructure(s)
 	}
 	if c.Structure == CellCoated {
-		c.CoreFraction, _ = d.number(o.req("core_fraction", "core volume fraction 0 < value < 1"), o.at("core_fraction"), openBoth(0, 1))
+		c.CoreFraction, _ = d.number(o.req("core_fraction", "core diameter / cell diameter, 0 < value < 1"), o.at("core_fraction"), openBoth(0, 1))
 		if sn := o.req("shell_index", "the shell's refractive index"); sn != nil {
 			c.Shell = d.index(sn, o.at("shell_index"))
 		}

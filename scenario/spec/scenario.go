@@ -56,7 +56,7 @@ const (
 // the sea) landward to the head (x = Length, the river).
 type Geometry struct {
 	Length float64    // channel length, m (0.5 km … 1000 km)
-	Cells  int        // number of finite-volume cells along the channel (4 … 10000)
+	Cells  int        // number of finite-volume cells along the channel (4 … 5000)
 	Shape  WidthShape // which of the fields below apply
 	// MouthWidth is B0, the width at x = 0, m (ShapeExponential only).
 	MouthWidth float64
@@ -109,6 +109,11 @@ type Signal struct {
 	Times []float64
 	// Values are in SI units: one value for a constant, else one per time.
 	Values []float64
+	// MaxGap is the longest interval allowed between samples, s: the
+	// series' max_gap, default 1.5 times its median sampling interval (a
+	// design choice that catches one missing sample in a regular record). 0
+	// for a constant.
+	MaxGap float64
 }
 
 // IsConstant reports whether s is a single constant value.
@@ -171,7 +176,7 @@ type Supply struct {
 	Concentration float64 // kg/m³ (SupplyConstant)
 	// A, B and QRef define the rating curve C = A·(Q/QRef)^B (SupplyRating),
 	// the usual power-law sediment rating curve (e.g. Syvitski et al. 2000,
-	// Water Resour. Res. 36:2747). A in kg/m³, B dimensionless (0 … 3),
+	// Water Resour. Res. 36:2747). A in kg/m³, B dimensionless (−2 … 3),
 	// QRef in m³/s (default 1 m³/s, so that A is the coefficient of C = a·Q^b
 	// with Q in m³/s).
 	A, B, QRef float64
@@ -248,14 +253,42 @@ func (o Override) Or(def float64) float64 {
 }
 
 // Closures are optional overrides of the estuary model's closure constants.
+// The vertical exchange between the layers (entrainment included) follows
+// from the mixing coefficients; the estuary model has no separate
+// entrainment constant.
 type Closures struct {
-	DragCoefficient          Override // C_D in τ_b = ρ·C_D·u|u|, dimensionless (1e-4 … 0.05)
-	MixingCoefficient        Override // a in K_M = a·C_D·U_T·H, dimensionless (1e-4 … 1)
-	EntrainmentCoefficient   Override // interfacial entrainment coefficient, dimensionless (0 … 1)
+	DragCoefficient       Override // C_D in τ_b = ρ·C_D·u|u|, dimensionless (1e-4 … 0.05)
+	MixingCoefficient     Override // a in K_M = K_S = a·C_D·U_T·H, dimensionless (1e-4 … 1)
+	BackgroundMixing      Override // K₀ added to K_M and K_S, m²/s (0 … 1)
+	DispersionCoefficient Override // c in K_H = c·U_T·B, tidal dispersion, dimensionless (0 … 1)
+	InterfacialFriction   Override // c_i, interfacial drag coefficient, dimensionless (0 … 0.05)
+	// Bed holds bed defaults for every class (a class may override each).
+	Bed BedParams
+}
+
+// BedParams are the bed-exchange constants of a sediment class (Partheniades
+// 1965 erosion, Krone 1962 deposition threshold).
+type BedParams struct {
 	ErosionRate              Override // Partheniades rate constant M, kg m⁻² s⁻¹ (0 … 0.1)
-	CriticalStressErosion    Override // τ_ce, Pa (0 … 10)
-	CriticalStressDeposition Override // τ_cd, Pa (0 … 10)
-	BedInventory             Override // erodible mass per bed area per class at the start, kg/m² (0 … 1e5)
+	CriticalStressErosion    Override // τ_ce, Pa (0 < τ ≤ 10)
+	CriticalStressDeposition Override // τ_cd, Pa (0 … 10; 0 = deposit at any stress); ≤ τ_ce
+	BedInventory             Override // erodible mass per bed area at the start, kg/m² (0 … 1e5)
+}
+
+// Merge returns b with every unset field taken from def.
+func (b BedParams) Merge(def BedParams) BedParams {
+	pick := func(o, d Override) Override {
+		if o.Set {
+			return o
+		}
+		return d
+	}
+	return BedParams{
+		ErosionRate:              pick(b.ErosionRate, def.ErosionRate),
+		CriticalStressErosion:    pick(b.CriticalStressErosion, def.CriticalStressErosion),
+		CriticalStressDeposition: pick(b.CriticalStressDeposition, def.CriticalStressDeposition),
+		BedInventory:             pick(b.BedInventory, def.BedInventory),
+	}
 }
 
 // SettlingKind says where a sediment class's settling velocity comes from.
@@ -274,6 +307,10 @@ type SedimentClass struct {
 	Name             string // unique; letters, digits, '_' and '-'
 	Settling         SettlingKind
 	SettlingVelocity float64 // m/s, 0 … 0.1 (SettlingConstant only)
+	// Bed holds the class's bed constants, merged with closures: the
+	// class's own value, else the closures value, else unset (the model's
+	// default).
+	Bed BedParams
 }
 
 // Run sets the simulated period and what is kept.
@@ -381,24 +418,31 @@ type IndexModel string
 const (
 	IndexConstant IndexModel = "constant" // m = N + iK at every wavelength
 	IndexTable    IndexModel = "table"    // rows of (λ, n, k), linear interpolation
-	// IndexExponential has a constant real part N and an imaginary part
-	// k(λ) = KRef·exp(−KSlope·(λ−WavelengthRef)), the exponential form used
-	// for the absorption of mineral and detrital particles (Babin & Stramski
-	// 2004, Limnol. Oceanogr. 49:756; Bricaud et al. 1998).
-	IndexExponential IndexModel = "exponential"
+	// IndexSmooth is a smooth spectral model:
+	//
+	//	n(λ) = N + CauchyB·(1/λ² − 1/WavelengthRef²)     (Cauchy 1836)
+	//	k(λ) = KRef·exp(−KSlope·(λ − WavelengthRef)) + KFloor
+	//
+	// the exponential decay of the absorption of mineral and detrital
+	// particles with wavelength (Babin & Stramski 2004, Limnol. Oceanogr.
+	// 49:756; Bricaud et al. 1998, J. Geophys. Res. 103:31033). The same form
+	// as package mie/refindex's Smooth model.
+	IndexSmooth IndexModel = "smooth"
 )
 
 // RefractiveIndex is a complex index m = n + ik, k ≥ 0 absorbing.
 type RefractiveIndex struct {
 	Model      IndexModel
 	RelativeTo Medium
-	N, K       float64 // IndexConstant; N also for IndexExponential. n 0.5 … 3.5, k 0 … 10
+	N, K       float64 // IndexConstant; N also for IndexSmooth. n 0.5 … 3.5, k 0 … 10
 	// Table rows (IndexTable): Wavelengths in m, strictly increasing, and
 	// covering every optics wavelength (no extrapolation).
 	Wavelengths, NTable, KTable []float64
-	KRef                        float64 // IndexExponential: k at WavelengthRef
-	WavelengthRef               float64 // IndexExponential: m
-	KSlope                      float64 // IndexExponential: 1/m
+	WavelengthRef               float64 // IndexSmooth: reference vacuum wavelength, m
+	CauchyB                     float64 // IndexSmooth: m² (default 0: no dispersion)
+	KRef                        float64 // IndexSmooth: k at WavelengthRef above KFloor
+	KSlope                      float64 // IndexSmooth: 1/m (stored in SI: 0.011 nm⁻¹ = 1.1e7 m⁻¹)
+	KFloor                      float64 // IndexSmooth: wavelength-independent part of k (default 0)
 }
 
 // At returns n and k at vacuum wavelength lambda (m).
@@ -421,8 +465,9 @@ func (r RefractiveIndex) At(lambda float64) (n, k float64) {
 		}
 		f := (lambda - w[i-1]) / (w[i] - w[i-1])
 		return r.NTable[i-1] + f*(r.NTable[i]-r.NTable[i-1]), r.KTable[i-1] + f*(r.KTable[i]-r.KTable[i-1])
-	case IndexExponential:
-		return r.N, r.KRef * math.Exp(-r.KSlope*(lambda-r.WavelengthRef))
+	case IndexSmooth:
+		n = r.N + r.CauchyB*(1/(lambda*lambda)-1/(r.WavelengthRef*r.WavelengthRef))
+		return n, r.KRef*math.Exp(-r.KSlope*(lambda-r.WavelengthRef)) + r.KFloor
 	}
 	return r.N, r.K
 }
@@ -506,8 +551,11 @@ const (
 
 // CellParams describe phytoplankton cells.
 type CellParams struct {
-	Structure    CellStructure // default CellHomogeneous
-	CoreFraction float64       // core volume fraction 0 < f < 1 (CellCoated)
+	Structure CellStructure // default CellHomogeneous
+	// CoreFraction is core diameter / cell diameter, 0 < f < 1 (CellCoated),
+	// as in package mie/population's Cell. Population.Index is then the
+	// core's index and Shell the shell's.
+	CoreFraction float64
 	Shell        RefractiveIndex
 }
 

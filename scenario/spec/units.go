@@ -30,6 +30,8 @@ var (
 	dimArealMass   = dim{M: 1, L: -2}
 	dimPerLength   = dim{L: -1}
 	dimAngle       = dim{A: 1}
+	dimArea        = dim{L: 2}
+	dimDiffusivity = dim{L: 2, T: -1}
 )
 
 // dimName names a dimension in error messages.
@@ -63,6 +65,10 @@ func (d dim) name() string {
 		return "an inverse length"
 	case dimAngle:
 		return "an angle"
+	case dimArea:
+		return "an area"
+	case dimDiffusivity:
+		return "a diffusivity"
 	}
 	return fmt.Sprintf("dimension %+v", d)
 }
@@ -167,6 +173,13 @@ func init() {
 	addUnit("1/m", dimPerLength, 1, 0, "m-1")
 	addUnit("1/nm", dimPerLength, 1e9, 0, "nm-1")
 	addUnit("1/µm", dimPerLength, 1e6, 0, "µm-1")
+	// area (Cauchy dispersion coefficients)
+	addUnit("m2", dimArea, 1, 0)
+	addUnit("µm2", dimArea, 1e-12, 0)
+	addUnit("nm2", dimArea, 1e-18, 0)
+	// diffusivity
+	addUnit("m2/s", dimDiffusivity, 1, 0)
+	addUnit("cm2/s", dimDiffusivity, 1e-4, 0)
 	// angle
 	addUnit("deg", dimAngle, math.Pi/180, 0, "°")
 	addUnit("rad", dimAngle, 1, 0)
@@ -214,6 +227,8 @@ var (
 	kAbsorption  = kind{"absorption coefficient", []string{"1/m", "m-1"}, "1/m"}
 	kSlope       = kind{"spectral slope", []string{"1/nm", "1/µm", "1/m"}, "1/nm"}
 	kAngle       = kind{"angle", []string{"deg", "rad"}, "deg"}
+	kCauchy      = kind{"Cauchy coefficient", []string{"µm2", "nm2", "m2"}, "µm2"}
+	kDiffusivity = kind{"diffusivity", []string{"m2/s", "cm2/s"}, "m2/s"}
 	// kConcentration accepts three dimensions; the unit decides the basis.
 	kConcentration = kind{"particle concentration", []string{
 		"kg/m3", "g/L", "g/m3", "mg/L", "mg/m3", "µg/L",

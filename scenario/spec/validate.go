@@ -92,6 +92,16 @@ func (d *decoder) crossMixture(m *Mixture) {
 		}
 	}
 	check := func(path string, ri RefractiveIndex) {
+		if ri.Model == IndexSmooth && ri.WavelengthRef > 0 && ri.CauchyB != 0 {
+			// the Cauchy term must not carry n out of range at any wavelength
+			for _, l := range []float64{lo, hi} {
+				if n, _ := ri.At(l); !indexRealRange.contains(n) {
+					d.addAt(path+".cauchy_b", fmt.Sprintf("gives n = %.4g at %s", n, formatIn(l, kWavelength)),
+						"n within "+indexRealRange.describe(nil)+" at every optics wavelength")
+					return
+				}
+			}
+		}
 		if ri.Model != IndexTable || len(ri.Wavelengths) < 2 {
 			return
 		}
