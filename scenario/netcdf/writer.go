@@ -29,7 +29,7 @@ const bufSize = 1 << 15
 type Writer struct {
 	w   io.Writer
 	h   Header
-	L   *layout
+	lay *layout
 	pos int64 // bytes written so far
 
 	fixed, rec []int // variable indices in slab order
@@ -43,13 +43,14 @@ type Writer struct {
 }
 
 // NewWriter checks h, writes its header to w and returns a Writer for the
-// data. h is copied; later changes to it have no effect.
+// data. The Writer keeps h: do not modify it, or the slices it refers to,
+// before Close.
 func NewWriter(w io.Writer, h Header) (*Writer, error) {
 	L, err := h.check()
 	if err != nil {
 		return nil, err
 	}
-	nw := &Writer{w: w, h: h, L: L}
+	nw := &Writer{w: w, h: h, lay: L}
 	for i := range h.Vars {
 		if L.record[i] {
 			nw.rec = append(nw.rec, i)
@@ -169,7 +170,7 @@ func (w *Writer) Next() (name string, record int, remaining int) {
 		return "", -1, 0
 	}
 	vi, r := w.current()
-	return w.h.Vars[vi].Name, r, int(w.L.nelems[vi] - w.done)
+	return w.h.Vars[vi].Name, r, int(w.lay.nelems[vi] - w.done)
 }
 
 func (w *Writer) current() (vi, record int) {
@@ -201,14 +202,14 @@ func (w *Writer) begin(name string, t Type, n int) (int, error) {
 		w.err = fmt.Errorf("netcdf: variable %q is of type %s, values given as %s", name, v.Type, t)
 		return 0, w.err
 	}
-	if rem := w.L.nelems[vi] - w.done; int64(n) > rem {
+	if rem := w.lay.nelems[vi] - w.done; int64(n) > rem {
 		w.err = fmt.Errorf("netcdf: variable %q%s: %d values given, %d remain in this slab", name, where, n, rem)
 		return 0, w.err
 	}
 	if w.done == 0 {
-		want := w.L.begin[vi]
+		want := w.lay.begin[vi]
 		if r > 0 {
-			want += int64(r) * w.L.recSize
+			want += int64(r) * w.lay.recSize
 		}
 		if w.pos != want {
 			w.err = fmt.Errorf("netcdf: internal error: variable %q%s starts at byte %d, header says %d", name, where, w.pos, want)
@@ -232,7 +233,7 @@ func (r recordNote) String() string {
 // when it is complete.
 func (w *Writer) advance(vi, n int) error {
 	w.done += int64(n)
-	if w.done < w.L.nelems[vi] {
+	if w.done < w.lay.nelems[vi] {
 		return nil
 	}
 	if p := w.padding[vi]; len(p) > 0 {
@@ -409,8 +410,8 @@ func (w *Writer) Close() error {
 		w.err = fmt.Errorf("%w: variable %q%s still lacks %d values", ErrIncomplete, name, where, rem)
 		return w.err
 	}
-	if w.pos != w.L.fileSize {
-		w.err = fmt.Errorf("netcdf: internal error: wrote %d bytes, layout computed %d", w.pos, w.L.fileSize)
+	if w.pos != w.lay.fileSize {
+		w.err = fmt.Errorf("netcdf: internal error: wrote %d bytes, layout computed %d", w.pos, w.lay.fileSize)
 		return w.err
 	}
 	w.err = errors.New("netcdf: Writer already closed")
