@@ -26,6 +26,10 @@
 // itself as they fall due, so the caller streams only the data variables,
 // in file order (fixed-size variables, then record by record).
 //
+// For a run that produces its outputs time step by time step, make time
+// Unlimited: each output time is then one record, written before the next
+// is computed, so no more than one time step need be held in memory.
+//
 // Units are not checked against the standard names' canonical units; the
 // caller states them. Missing data are written as the _FillValue
 // (netcdf.FillFloat, netcdf.FillDouble …); NaN data are refused.
