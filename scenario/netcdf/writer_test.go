@@ -184,7 +184,9 @@ func TestFormatLimits(t *testing.T) {
 	}
 }
 
-// The Writer's Next reports the slab due, walking the file order.
+// The Writer's Next reports the slab due, walking the file order of the
+// specification: fixed-size variables, then records interleaving the record
+// variables.
 func TestNext(t *testing.T) {
 	w, err := NewWriter(io.Discard, simpleHeader())
 	if err != nil {
