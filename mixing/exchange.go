@@ -52,6 +52,29 @@ func (p Profile) Below(zeta float64) float64 {
 	return p.River*f1 + p.Exchange*f2
 }
 
+// InterfacialViscosity returns the eddy viscosity (m² s⁻¹) for which the
+// stress of the pure-exchange Hansen–Rattray profile at its flow reversal,
+// K_M·(u_E/H)·P2'(ζ0), equals the two-layer interfacial stress c_i·(ū1 − ū2)²
+// (interfacial drag law as in Schijf & Schönfeld 1953). With u_E from
+// ExchangeVelocity this gives K_i = c_K·H²·√(c_i·g·β·s_x),
+// c_K = |ū1 − ū2|/(u_E·√(48·P2'(ζ0))) ≈ 0.084 (derived here; see doc.go).
+// It supplies the friction of weakly mixed, salt-wedge-like flow.
+func InterfacialViscosity(sx, h, ci, beta float64) float64 {
+	if !(sx > 0) || !(ci > 0) {
+		return 0
+	}
+	return interfacialCK * h * h * math.Sqrt(ci*gravity*beta*sx)
+}
+
+var interfacialCK = func() float64 {
+	z := (-1 - math.Sqrt(33)) / 16 // flow reversal of P2
+	p := Profile{Exchange: 1}
+	t := p.Below(z) // landward transport below the reversal (negative)
+	du := t/z - t/(1+z)
+	d2 := -18*z - 24*z*z
+	return math.Abs(du) / math.Sqrt(48*d2)
+}()
+
 // StratificationHR returns the top-to-bottom salinity difference of the
 // Hansen–Rattray/MacCready (2004) solution, Δs = (K_M/K_S)·48/(g·β·H)·u_E·(U_R/8 + 3u_E/20),
 // from s'(ζ) = (K_M/K_S)(48/(gβH))·u_E·(U_R·P3 + u_E·P4),

@@ -239,6 +239,7 @@ func (m *Model) exchange() {
 		if sx < 0 {
 			sx = 0
 		}
+		km += InterfacialViscosity(sx, hf, cl.InterfaceFriction, beta)
 		p := Profile{River: m.qr / (bf * hf), Exchange: ExchangeVelocity(sx, hf, km, beta)}
 		zi, _ := p.Crossing()
 		zi = math.Max(zi, -1+fmin)
