@@ -266,7 +266,9 @@ func TestBadInput(t *testing.T) {
 		{"real index", func(p *Population) { p.Index = refindex.Constant{N: -1.5} }, nil, "real part = -1.5, want n > 0"},
 		{"empty size range", func(p *Population) { p.Size = psd.PowerLaw{N: 1, Slope: 4, Min: 3e-6, Max: 1e-6} }, nil, "empty"},
 		{"empty grid", nil, func(s *kernel.Spec) { s.Edges = s.Edges[:1] }, "empty size range"},
-		{"core fraction", func(p *Population) { p.Cell = &Cell{Core: refindex.Constant{N: 1.3}, Shell: refindex.Constant{N: 1.4}, CoreFraction: 1.5} }, nil, "CoreFraction = 1.5"},
+		{"core fraction", func(p *Population) {
+			p.Cell = &Cell{Core: refindex.Constant{N: 1.3}, Shell: refindex.Constant{N: 1.4}, CoreFraction: 1.5}
+		}, nil, "CoreFraction = 1.5"},
 	} {
 		p, s := good, spec
 		if c.mod != nil {
