@@ -1,7 +1,10 @@
 package optics
 
 import (
+	"fmt"
 	"math"
+
+	"github.com/murk-optics/murk/mie"
 )
 
 // Composite is the package default: the effective-medium sphere sets how
@@ -56,8 +59,8 @@ func (c Composite) Evaluate(ws *Workspace, p Problem, mu, diff []float64) (Cross
 	if err != nil {
 		return CrossSections{}, err
 	}
-	pc := &ws.prim
-	if err := pc.prepare(&ws.solver, p); err != nil {
+	pc, err := ws.primary(p)
+	if err != nil {
 		return CrossSections{}, err
 	}
 	if len(mu) > 0 {
@@ -82,20 +85,24 @@ func (c Composite) Evaluate(ws *Workspace, p Problem, mu, diff []float64) (Cross
 	}
 	bbrP, gP := pc.cbb/pc.csca, pc.g
 	if w < 1 {
-		needBack := !p.NoBackscatter
-		full, err := c.Sphere.Evaluate(ws, Problem{Fractal: p.Fractal, Diameter: p.Diameter, Wavelength: p.Wavelength, MediumIndex: p.MediumIndex, Index: p.Index, NoBackscatter: !needBack}, mu, diff)
-		if err != nil {
-			return CrossSections{}, err
+		// The solver still holds the porous sphere of the first pass
+		// (whose x is within Mie's domain whenever w < 1 matters: beyond
+		// it, the sphere's scattering is reported only when w = 1).
+		if mie.SizeParameter(p.Diameter, p.Wavelength, p.MediumIndex) > mie.MaxSizeParameter {
+			return CrossSections{}, fmt.Errorf("optics: composite: floc size parameter beyond %g with mixing weight %.3g < 1; the sphere's angular scattering is unavailable", mie.MaxSizeParameter, w)
 		}
 		bbrS := 0.0
-		if full.Scattering > 0 {
-			bbrS = full.Backscattering / full.Scattering
+		if cs.Scattering > 0 && !p.NoBackscatter {
+			bbrS = ws.solver.BackHemisphere() * math.Pi * p.Diameter * p.Diameter / 4 / cs.Scattering
+		}
+		if len(mu) > 0 {
+			ws.solver.VolumeScattering(mu, 1, p.Wavelength, p.MediumIndex, diff)
 			for i := range diff {
 				diff[i] *= (1 - w) // the sphere's own dC/dΩ, weighted
 			}
 		}
 		cs.Backscattering = cs.Scattering * ((1-w)*bbrS + w*bbrP)
-		cs.Asymmetry = (1-w)*full.Asymmetry + w*gP
+		cs.Asymmetry = (1-w)*cs.Asymmetry + w*gP
 	} else {
 		for i := range diff {
 			diff[i] = 0

@@ -61,8 +61,8 @@ type Method interface {
 // each goroutine its own. Once warmed up, evaluations allocate nothing.
 type Workspace struct {
 	solver mie.Solver
-	elem   []mie.Element
-	prim   primaryCache
+	cache  []*primaryCache // primaries met, at most maxCached
+	clock  uint64
 }
 
 // check validates p and returns x (floc size parameter), the solid

@@ -71,7 +71,7 @@ func TestStructureFactorLimits(t *testing.T) {
 	// S ∝ u^(−D_f) for u ≫ 1 (Sorensen 2001, §4): issue checks.
 	// The next term of each form is c·u⁴ with |c| < 1 (expansion of the
 	// closed forms), so the Guinier form must hold to u⁴.
-	const slopeTol = 2e-3    // local slope at u = 1e4 differs from −D_f by O(u⁻²)
+	const slopeTol = 2e-3 // local slope at u = 1e4 differs from −D_f by O(u⁻²)
 	for _, s := range []StructureFactor{FisherBurford, DobbinsMegaridis, ExponentialCutoff} {
 		for _, df := range []float64{1.5, 1.8, 2, 2.5, 3} {
 			if v := s.Value(0, df); v != 1 {

@@ -58,6 +58,7 @@ func (r FractalRDG) Name() string { return "rdg-" + r.Structure.String() }
 // primaryCache holds one primary particle's angular tables.
 type primaryCache struct {
 	valid          bool
+	used           uint64 // workspace clock at last use (least-recently-used eviction)
 	dp, lam, nw    float64
 	m              complex128
 	k              float64
@@ -84,11 +85,38 @@ var unitNodes, unitWeights = func() ([]float64, []float64) {
 	return x, w
 }()
 
-// prepare fills the cache for p if it does not hold p's primary already.
-func (c *primaryCache) prepare(s *mie.Solver, p Problem) error {
-	if c.valid && c.dp == p.Fractal.PrimaryDiameter && c.lam == p.Wavelength && c.nw == p.MediumIndex && c.m == p.Index {
-		return nil
+// maxCached is the number of primaries (wavelength × index × size) a
+// Workspace keeps; a kernel build over up to this many wavelengths never
+// recomputes a primary.
+const maxCached = 64
+
+// primary returns the cache entry for p's primary, filling the least
+// recently used entry if none holds it.
+func (ws *Workspace) primary(p Problem) (*primaryCache, error) {
+	ws.clock++
+	var lru *primaryCache
+	for _, c := range ws.cache {
+		if c.valid && c.dp == p.Fractal.PrimaryDiameter && c.lam == p.Wavelength && c.nw == p.MediumIndex && c.m == p.Index {
+			c.used = ws.clock
+			return c, nil
+		}
+		if lru == nil || c.used < lru.used {
+			lru = c
+		}
 	}
+	if len(ws.cache) < maxCached {
+		lru = new(primaryCache)
+		ws.cache = append(ws.cache, lru)
+	}
+	lru.used = ws.clock
+	if err := lru.prepare(&ws.solver, p); err != nil {
+		return nil, err
+	}
+	return lru, nil
+}
+
+// prepare fills the cache entry for p's primary.
+func (c *primaryCache) prepare(s *mie.Solver, p Problem) error {
 	c.valid = false
 	xp := mie.SizeParameter(p.Fractal.PrimaryDiameter, p.Wavelength, p.MediumIndex)
 	ef, err := s.Sphere(xp, p.Index)
@@ -194,8 +222,8 @@ func (r FractalRDG) Evaluate(ws *Workspace, p Problem, mu, diff []float64) (Cros
 	if err != nil {
 		return CrossSections{}, err
 	}
-	c := &ws.prim
-	if err := c.prepare(&ws.solver, p); err != nil {
+	c, err := ws.primary(p)
+	if err != nil {
 		return CrossSections{}, err
 	}
 	if len(mu) > 0 {

@@ -1,0 +1,114 @@
+package optics
+
+import (
+	"math"
+	"slices"
+	"testing"
+
+	"github.com/murk-optics/murk/floc"
+	"github.com/murk-optics/murk/mie/kernel"
+	"github.com/murk-optics/murk/mie/refindex"
+)
+
+// mineralAbs is the mineral index in absolute terms for water of index 1.34.
+var mineralAbs = refindex.Constant{N: real(mineral) * 1.34, K: imag(mineral) * 1.34}
+
+func kernelSpec(nb, nl, workers int) kernel.Spec {
+	edges, err := kernel.LogEdges(4e-6, 1e-3, nb)
+	if err != nil {
+		panic(err)
+	}
+	wl := make([]float64, nl)
+	for i := range wl {
+		wl[i] = 400e-9 + 380e-9*float64(i)/float64(max(nl-1, 1))
+	}
+	return kernel.Spec{
+		Edges: edges, Wavelengths: wl, Angles: []float64{math.Pi / 2, 2.042, 2.443, math.Pi},
+		Medium: refindex.ConstantMedium(1.34), SubStep: 1e9, Workers: workers,
+	}
+}
+
+func TestKernelDeterministic(t *testing.T) {
+	// Identical tables for any number of workers (STYLE.md determinism).
+	ev := Evaluator{Fractal: floc.DefaultFractal, Index: mineralAbs}
+	a, err := kernel.Build(ev, kernelSpec(12, 3, 1))
+	if err != nil {
+		t.Fatal(err)
+	}
+	b, err := kernel.Build(ev, kernelSpec(12, 3, 2))
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, p := range [][2][]float64{{a.Cext, b.Cext}, {a.Cbb, b.Cbb}, {a.DCsca, b.DCsca}} {
+		if !slices.Equal(p[0], p[1]) {
+			t.Fatal("tables differ between 1 and 2 workers")
+		}
+	}
+}
+
+func TestKernelMatchesDirect(t *testing.T) {
+	// A one-sub-point bin is the method evaluated at the bin's centre in
+	// ln D (the kernel builder's midpoint rule), bit for bit.
+	spec := kernelSpec(5, 2, 1)
+	spec.MinSub, spec.MaxSub = 1, 1
+	ev := Evaluator{Method: FractalRDG{}, Fractal: floc.DefaultFractal, Index: mineralAbs}
+	tab, err := kernel.Build(ev, spec)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var ws Workspace
+	nb := tab.NBins()
+	for l, lam := range tab.Wavelengths {
+		for i := range nb {
+			d := tab.Edges[i] * math.Exp(0.5*math.Log(tab.Edges[i+1]/tab.Edges[i]))
+			p := Problem{Fractal: floc.DefaultFractal, Diameter: d, Wavelength: lam, MediumIndex: 1.34, Index: complex(mineralAbs.N, mineralAbs.K) / 1.34}
+			cs, err := FractalRDG{}.Evaluate(&ws, p, nil, nil)
+			if err != nil {
+				t.Fatal(err)
+			}
+			c := l*nb + i
+			if math.Abs(tab.Cext[c]/cs.Extinction-1) > 1e-13 || math.Abs(tab.Cbb[c]/cs.Backscattering-1) > 1e-13 {
+				t.Errorf("cell %d: table %g/%g direct %g/%g", c, tab.Cext[c], tab.Cbb[c], cs.Extinction, cs.Backscattering)
+			}
+		}
+	}
+}
+
+// BenchmarkKernel builds the kernel: 100 floc sizes (4 µm–1 mm) ×
+// 20 wavelengths (400–780 nm), 4 angles, 3 sub-points per bin. Per-size
+// cost = ns/op ÷ 6000 evaluations.
+func BenchmarkKernel(b *testing.B) {
+	for _, m := range []Method{Composite{}, FractalRDG{}} {
+		b.Run(m.Name(), func(b *testing.B) {
+			ev := Evaluator{Method: m, Fractal: floc.DefaultFractal, Index: mineralAbs}
+			spec := kernelSpec(100, 20, 0)
+			b.ReportAllocs()
+			for b.Loop() {
+				if _, err := kernel.Build(ev, spec); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
+	}
+}
+
+// BenchmarkEvaluate is the cost of one floc at one wavelength, with the
+// primary's tables cached.
+func BenchmarkEvaluate(b *testing.B) {
+	mu := []float64{0, -0.5, -1}
+	diff := make([]float64, len(mu))
+	for _, m := range methods[:4] {
+		for _, d := range []float64{20e-6, 200e-6, 1000e-6} {
+			b.Run(m.Name()+"/"+map[float64]string{20e-6: "20um", 200e-6: "200um", 1000e-6: "1000um"}[d], func(b *testing.B) {
+				var ws Workspace
+				p := problem(d, 550e-9)
+				b.ReportAllocs()
+				for b.Loop() {
+					if _, err := m.Evaluate(&ws, p, mu, diff); err != nil {
+						b.Fatal(err)
+					}
+				}
+			})
+		}
+	}
+}
