@@ -62,9 +62,20 @@ const (
 	costBeta = 7.7e-4
 )
 
-// wiscombeTerms is the Lorenz–Mie series length of Wiscombe (1979, NCAR
-// TN-140, eq. for 8 < x < 4200): N = x + 4.05·x^(1/3) + 2.
-func wiscombeTerms(x float64) float64 { return x + 4.05*math.Cbrt(x) + 2 }
+// wiscombeTerms is the Lorenz–Mie series length criterion of Wiscombe
+// (1980, Appl. Opt. 19:1505; from memory): N = x + 4·x^(1/3) + 1 for
+// x < 8, x + 4.05·x^(1/3) + 2 for 8 ≤ x < 4200, x + 4·x^(1/3) + 2 above.
+// Package mie uses a few more terms (see its seriesLength); for a cost
+// estimate the difference (about 1.5·x^(1/3)) does not matter.
+func wiscombeTerms(x float64) float64 {
+	switch {
+	case x < 8:
+		return x + 4*math.Cbrt(x) + 1
+	case x < 4200:
+		return x + 4.05*math.Cbrt(x) + 2
+	}
+	return x + 4*math.Cbrt(x) + 2
+}
 
 // Estimate returns the rough cost of a full scenario.
 func Estimate(s Scenario) Cost {
@@ -96,26 +107,15 @@ func EstimateEstuary(e Estuary) Cost {
 	}
 	dx := g.Length / float64(g.Cells)
 	var uMax float64
-	omega := 2 * math.Pi / PeriodM2
+	ut := tidalVelocities(e)
 	for i := 0; i < g.Cells; i++ {
-		x := (float64(i) + 0.5) * dx
-		b, h := g.At(x)
+		b, h := g.At((float64(i) + 0.5) * dx)
 		if b <= 0 || h <= 0 {
 			continue
 		}
-		ut := e.Tide.M2.Velocity + e.Tide.S2.Velocity
-		if amp := e.Tide.M2.Amplitude + e.Tide.S2.Amplitude; amp > 0 {
-			// prism landward of x by the midpoint rule on the cell grid
-			var prism float64
-			for j := i; j < g.Cells; j++ {
-				bj, _ := g.At((float64(j) + 0.5) * dx)
-				prism += bj * dx
-			}
-			ut += omega * amp * prism / (b * h)
-		}
 		ur := e.River.Discharge.Max() / (b * h)
 		ci := math.Sqrt(costG*costBeta*e.Ocean.Salinity*h) / 2
-		uMax = math.Max(uMax, ut+ur+ci)
+		uMax = math.Max(uMax, ut[i]+ur+ci)
 	}
 	dt := PeriodM2 / costStepsPerTide
 	if uMax > 0 {
@@ -166,6 +166,31 @@ func EstimateMixture(m Mixture) Cost {
 	}
 	c.AngleTerms = c.MieTerms * float64(c.Angles)
 	return c
+}
+
+// tidalVelocities returns the tidal velocity amplitude (M2 + S2, m/s) at
+// each cell centre: a given velocity amplitude, or the classic prism
+// estimate U_T(x) = ω·η0·∫ₓᴸ B dx' / (B(x)·H(x)) with the prism landward of
+// the cell centre integrated by the midpoint rule on the cell grid (half
+// the cell's own width, then every cell landward).
+func tidalVelocities(e Estuary) []float64 {
+	g := e.Geometry
+	out := make([]float64, g.Cells)
+	dx := g.Length / float64(g.Cells)
+	omega := 2 * math.Pi / PeriodM2
+	amp := e.Tide.M2.Amplitude + e.Tide.S2.Amplitude
+	prism := 0.0 // ∫ B dx' from the current cell's landward face to the head
+	for i := g.Cells - 1; i >= 0; i-- {
+		x := (float64(i) + 0.5) * dx
+		b, h := g.At(x)
+		out[i] = e.Tide.M2.Velocity + e.Tide.S2.Velocity
+		if amp > 0 && b > 0 && h > 0 {
+			half, _ := g.At(x + dx/4) // midpoint of the landward half cell
+			out[i] += omega * amp * (prism + half*dx/2) / (b * h)
+		}
+		prism += b * dx
+	}
+	return out
 }
 
 // sizeSpan is the diameter range a kernel must cover: the Junge limits, a

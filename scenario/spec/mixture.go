@@ -7,6 +7,8 @@ import (
 	"path/filepath"
 
 	"gopkg.in/yaml.v3"
+
+	"github.com/murk-optics/murk/mie/psd"
 )
 
 // Defaults of the mixture sections (documented in doc.go).
@@ -511,7 +513,13 @@ func (d *decoder) size(n *yaml.Node, path string) SizeDistribution {
 			case !st.Mode().IsRegular():
 				d.add(cn, o.at("csv"), cn.Value, "not a regular file", "an existing CSV file, relative to the scenario file")
 			default:
-				sd.CSV = p
+				b, err := psd.ReadCSVFile(p)
+				if err != nil {
+					d.add(cn, o.at("csv"), cn.Value, "bad size table: "+err.Error(),
+						"columns lower, upper (with units) and volume (µL/L), rows in increasing size; see mie/psd.ReadCSV")
+					break
+				}
+				sd.CSV, sd.Table = p, b
 			}
 		}
 	}

@@ -3,6 +3,8 @@ package spec
 import (
 	"math"
 	"sort"
+
+	"github.com/murk-optics/murk/mie/psd"
 )
 
 // Scenario is one validated murk scenario, every value in SI units (with
@@ -505,9 +507,10 @@ type SizeDistribution struct {
 	Median, GSD float64
 	By          Basis
 	// CSV is the path of the size table (SizeTable), resolved against the
-	// scenario file's directory. The file must exist; its columns are read
-	// by the particle optics, which documents them.
-	CSV string
+	// scenario file's directory, and Table its contents as read by
+	// mie/psd.ReadCSVFile (which documents the columns).
+	CSV   string
+	Table psd.Binned
 }
 
 // Concentration is an amount of particles per volume of water.
