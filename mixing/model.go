@@ -330,7 +330,8 @@ func (m *Model) kinematics() {
 
 // viscosity of water, m² s⁻¹, at temperature tc (°C): Vogel equation
 // μ = 2.414e-5·10^(247.8/(T − 140)) Pa s (T in K; fit to handbook values, from
-// memory), over ρ = 1000 kg m⁻³. Valid 0–100 °C within about 2 %.
+// memory), over ρ = 1000 kg m⁻³. Within 2.5 % of handbook values over 0–40 °C
+// (2.2 % low at 0 °C); below 0 °C it is extrapolated.
 // The model reads it from a 0.1 °C table over [−2, 40] °C (interpolation error < 1e-5 relative).
 func viscosity(tc float64) float64 {
 	f := (tc - viscT0) / viscDT
