@@ -4,6 +4,8 @@ import (
 	"math"
 	"testing"
 
+	"gonum.org/v1/gonum/integrate/quad"
+
 	"github.com/murk-optics/murk/mie"
 	"github.com/murk-optics/murk/mie/refindex"
 )
@@ -134,3 +136,44 @@ func TestBackscatterSubsample(t *testing.T) {
 		}
 	}
 }
+
+// TestVSFIntegrals: the tabulated dCsca/dΩ integrates to Csca over the
+// sphere and to Cbb over the back hemisphere (definitions; Bohren & Huffman
+// 1983 eq. 3.24), with Gauss–Legendre in μ = cos θ (exact for the
+// polynomial |S|² of degree 2N when the node count exceeds N; here x ≤ 12,
+// N ≤ 22, 40 nodes per hemisphere).
+func TestVSFIntegrals(t *testing.T) {
+	const nodes = 40
+	mu := make([]float64, 2*nodes)
+	w := make([]float64, 2*nodes)
+	glBack(mu[:nodes], w[:nodes], -1, 0)
+	glBack(mu[nodes:], w[nodes:], 0, 1)
+	angles := make([]float64, len(mu))
+	for i, m := range mu {
+		angles[i] = math.Acos(m)
+	}
+	water := refindex.ConstantMedium(1.34)
+	edges, _ := LogEdges(0.2e-6, 1.5e-6, 6)
+	tab, err := Build(Sphere{Index: refindex.Relative{Rel: refindex.Constant{N: 1.15, K: 1e-3}, Water: water}}, Spec{Edges: edges, Wavelengths: []float64{550e-9}, Angles: angles, Medium: water})
+	if err != nil {
+		t.Fatal(err)
+	}
+	nb, na := tab.NBins(), len(angles)
+	for i := 0; i < nb; i++ {
+		var all, back float64
+		for a := 0; a < na; a++ {
+			v := 2 * math.Pi * w[a] * tab.DCsca[a*nb+i]
+			all += v
+			if a < nodes {
+				back += v
+			}
+		}
+		// quadTol: exact quadrature of a polynomial; round-off only.
+		const quadTol = 1e-10
+		if math.Abs(all/tab.Csca[i]-1) > quadTol || math.Abs(back/tab.Cbb[i]-1) > quadTol {
+			t.Errorf("bin %d: ∫VSF = %g vs Csca %g; back %g vs Cbb %g", i, all, tab.Csca[i], back, tab.Cbb[i])
+		}
+	}
+}
+
+func glBack(x, w []float64, lo, hi float64) { quad.Legendre{}.FixedLocations(x, w, lo, hi) }
