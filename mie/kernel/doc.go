@@ -41,6 +41,12 @@
 // turns aliasing into an unbiased scatter of relative size about
 // (ripple amplitude)/√S.
 //
+// Measured (tests): for non-absorbing spheres of m = 1.2 at x ≈ 15–90 in
+// bins 0.045 wide in ln D, the default differs from a ten times finer
+// sampling by at most 0.13 % in Csca and 2.1 % in Cbb per bin (the
+// narrowest resonance spikes are sampled, not resolved); two points per bin
+// err by 1.9 % and 17 %.
+//
 // # Backscattering cost
 //
 // Cbb needs the integral of |S1|²+|S2|² over the back hemisphere, which the
@@ -51,8 +57,9 @@
 // parameter BackscatterX (default 200) Cbb is averaged over BackscatterSub
 // (default 4) jittered strata of its own while everything else keeps every
 // sub-point. There a bin spans tens to hundreds of ripple periods, so the
-// subset is an unbiased but noisy estimate of the bin mean; the tests
-// measure that scatter against fully resolved bins. Set BackscatterSub < 0
+// subset is an unbiased but noisy estimate of the bin mean; measured against
+// fully resolved bins at x ≈ 250–370: 7 % in the worst bin, 0.3 % summed
+// over 11 bins. Set BackscatterSub < 0
 // for full resolution everywhere.
 //
 // # Evaluators

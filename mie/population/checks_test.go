@@ -289,3 +289,18 @@ func TestBadInput(t *testing.T) {
 		t.Errorf("unknown unit: %v", err)
 	}
 }
+
+// TestSum: IOPs of populations in one water add (single scattering).
+func TestSum(t *testing.T) {
+	m, im := optics(t, TypicalMineral(water), junge4, 10)
+	d, id := optics(t, TypicalDetritus(water), junge4, 3)
+	tot, scratch := m.Table.NewIOP(), m.Table.NewIOP()
+	if err := Sum(&tot, &scratch, m, d); err != nil {
+		t.Fatal(err)
+	}
+	for l := range tot.C {
+		if math.Abs(tot.Bb[l]-(im.Bb[l]+id.Bb[l])) > 1e-15*tot.Bb[l] || math.Abs(tot.C[l]-(im.C[l]+id.C[l])) > 1e-15*tot.C[l] {
+			t.Errorf("λ %d: sum %g/%g, parts %g+%g / %g+%g", l, tot.Bb[l], tot.C[l], im.Bb[l], id.Bb[l], im.C[l], id.C[l])
+		}
+	}
+}
