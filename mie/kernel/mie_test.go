@@ -177,3 +177,27 @@ func TestVSFIntegrals(t *testing.T) {
 }
 
 func glBack(x, w []float64, lo, hi float64) { quad.Legendre{}.FixedLocations(x, w, lo, hi) }
+
+// TestSphereDeterministic: Mie tables are bit-for-bit identical for 1 and 3
+// workers (each cell is one worker's fixed-order sum).
+func TestSphereDeterministic(t *testing.T) {
+	water := refindex.ConstantMedium(1.34)
+	edges, _ := LogEdges(0.2e-6, 30e-6, 30)
+	spec := Spec{Edges: edges, Wavelengths: []float64{450e-9, 650e-9}, Angles: []float64{2.5}, Medium: water, BackscatterX: 50}
+	ev := Sphere{Index: refindex.Relative{Rel: refindex.Constant{N: 1.17, K: 1e-4}, Water: water}}
+	spec.Workers = 1
+	a, err := Build(ev, spec)
+	if err != nil {
+		t.Fatal(err)
+	}
+	spec.Workers = 3
+	b, err := Build(ev, spec)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for k := range a.Cbb {
+		if a.Cbb[k] != b.Cbb[k] || a.Cext[k] != b.Cext[k] || a.DCsca[k] != b.DCsca[k] {
+			t.Fatalf("cell %d differs between 1 and 3 workers", k)
+		}
+	}
+}
