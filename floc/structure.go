@@ -123,5 +123,8 @@ func (f Fractal) checkDiameter(field string, d float64) error {
 
 // rangeError is the package's error for a value outside its range.
 func rangeError(field string, v float64, allowed, unit string) error {
+	if unit == "1" {
+		unit = "(dimensionless)"
+	}
 	return fmt.Errorf("floc: %s = %g is outside the allowed range %s %s", field, v, allowed, unit)
 }

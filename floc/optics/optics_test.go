@@ -367,3 +367,19 @@ func TestEvaluateNoAllocs(t *testing.T) {
 		}
 	}
 }
+
+func TestParseMethodNames(t *testing.T) {
+	// Every listed name parses to a method that reports that name.
+	for _, n := range MethodNames {
+		m, err := ParseMethod(n)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if m.Name() != n {
+			t.Errorf("%q parses to %q", n, m.Name())
+		}
+	}
+	if _, err := ParseMethod("mie"); err == nil {
+		t.Error("no error for an unknown method")
+	}
+}
