@@ -5,7 +5,6 @@ import (
 	"errors"
 	"fmt"
 	"io"
-	"math"
 	"os"
 	"path/filepath"
 	"regexp"
@@ -310,7 +309,6 @@ func (d *decoder) geometry(n *yaml.Node, path string) Geometry {
 	case wn == nil:
 	case wn.Kind == yaml.ScalarNode:
 		g.MouthWidth, _ = d.quantity(wn, o.at("width"), kWidth, closed(1, 1e5))
-		g.ConvergenceLength = inf
 	default:
 		w := d.object(wn, o.at("width"), "mouth", "convergence_length")
 		g.MouthWidth, _ = d.quantity(w.req("mouth", "a width such as \"3 km\""), w.at("mouth"), kWidth, closed(1, 1e5))
@@ -629,5 +627,3 @@ func (d *decoder) run(n *yaml.Node, path string, length float64) Run {
 	}
 	return r
 }
-
-var inf = math.Inf(1)

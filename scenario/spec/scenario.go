@@ -63,7 +63,8 @@ type Geometry struct {
 	// MouthWidth is B0, the width at x = 0, m (ShapeExponential only).
 	MouthWidth float64
 	// ConvergenceLength is Lb in B(x) = B0·exp(−x/Lb), m (ShapeExponential
-	// only). +Inf means a prismatic channel ("convergence_length: none").
+	// only). 0 means a prismatic channel (width given as one value), as in
+	// package mixing.
 	ConvergenceLength float64
 	// Depth is the uniform depth below mean water, m (ShapeExponential only).
 	Depth float64
@@ -83,7 +84,7 @@ type Section struct {
 // geometries are interpolated linearly and held constant beyond their ends.
 func (g Geometry) At(x float64) (width, depth float64) {
 	if g.Shape != ShapeTable {
-		if math.IsInf(g.ConvergenceLength, 1) {
+		if g.ConvergenceLength == 0 {
 			return g.MouthWidth, g.Depth
 		}
 		return g.MouthWidth * math.Exp(-x/g.ConvergenceLength), g.Depth
