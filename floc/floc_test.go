@@ -507,3 +507,36 @@ func TestBinNumbers(t *testing.T) {
 		t.Errorf("mass in bins %g, want %g", total, 0.3*(1-p.PrimaryFraction))
 	}
 }
+
+func TestPopulationNoAllocs(t *testing.T) {
+	p, _ := DefaultModel.Population(80e-6, 20)
+	edges := []float64{4e-6, 20e-6, 80e-6, 300e-6, 1e-3}
+	dst := make([]float64, len(edges)-1)
+	allocs := testing.AllocsPerRun(50, func() {
+		_, _ = DefaultModel.MassSettlingVelocity(80e-6, 20, 15, 0.1)
+		_ = p.BinNumbers(DefaultFractal, 0.2, edges, dst)
+	})
+	if allocs != 0 {
+		t.Errorf("%g allocations per call", allocs)
+	}
+}
+
+func BenchmarkMassSettlingVelocity(b *testing.B) {
+	b.ReportAllocs()
+	for b.Loop() {
+		_, _ = DefaultModel.MassSettlingVelocity(80e-6, 20, 15, 0.1)
+	}
+}
+
+func BenchmarkBinNumbers100(b *testing.B) {
+	p, _ := DefaultModel.Population(80e-6, 20)
+	edges := make([]float64, 101)
+	for i := range edges {
+		edges[i] = 4e-6 * math.Pow(250, float64(i)/100)
+	}
+	dst := make([]float64, 100)
+	b.ReportAllocs()
+	for b.Loop() {
+		_ = p.BinNumbers(DefaultFractal, 0.2, edges, dst)
+	}
+}

@@ -6,7 +6,7 @@ import (
 )
 
 // Kinetics holds the growth and break-up closure of Winterwerp (1998,
-// J. Hydraul. Res. 36:309–326, eqs. 14–16) in its dimensionless ("primed")
+// J. Hydraul. Res. 36:309–326) in its dimensionless ("primed")
 // form, so that one parameter set holds for any primary size and fractal
 // dimension:
 //
@@ -47,8 +47,8 @@ type Kinetics struct {
 // band where fine sediment starts to flocculate, and e(0) = 0.1, which makes
 // the excess equilibrium size D_e − D_p ten times smaller in fresh water, the
 // contrast between river micro-flocs (10–20 µm) and estuarine macro-flocs
-// (100–200 µm) reported for the Seine and Gironde (Verney et al. 2009,
-// Cont. Shelf Res. 29:1008, from memory).
+// (100–200 µm) reported for the Seine and Gironde estuaries (a 2010
+// laboratory and field study; citation not verified).
 var DefaultKinetics = Kinetics{
 	Aggregation:          0.3095,
 	Breakup:              3.54e-5,

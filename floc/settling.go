@@ -56,7 +56,7 @@ func (st Settling) Validate() error {
 // floc of diameter d (m) with structure f, in water of salinity s (PSU) and
 // temperature t (°C), at suspended mass concentration c (kg m⁻³, used only
 // for hindered settling). It is Winterwerp's (1998, J. Hydraul. Res.
-// 36:309–326, eq. 9) fractal generalisation of Stokes' law,
+// 36:309–326) fractal generalisation of Stokes' law,
 //
 //	w_s = (α/18β)·(ρ_s − ρ_w)·g/μ · D_p^(3−n_f)·D^(n_f−1) / (1 + 0.15·Re^0.687),
 //

@@ -21,7 +21,7 @@ import (
 // backscattering ratio. The weight is the incoherent (fluctuation) share of
 // the scattering: in a random two-phase medium the scattering from index
 // fluctuations is proportional to φ(1 − φ) (Debye & Bueche 1949, J. Appl.
-// Phys. 20:518), i.e. to the independent primaries' scattering N·C_sca,p
+// Phys. 20:518; from memory), i.e. to the independent primaries' scattering N·C_sca,p
 // times (1 − φ), while the mean field is the homogeneous sphere. The cap at 1
 // keeps energy conserved: a floc cannot scatter more than the mean-field
 // sphere removes from the beam.

@@ -383,3 +383,27 @@ func TestParseMethodNames(t *testing.T) {
 		t.Error("no error for an unknown method")
 	}
 }
+
+func TestRDGSmallAggregateLimit(t *testing.T) {
+	// An aggregate much smaller than the wavelength scatters coherently,
+	// C_sca → N²·C_sca,p, with a Guinier correction 1 − O((kR_g)²)
+	// (Sorensen 2001, §4: S(q) → 1 for qR_g ≪ 1), and absorbs N·C_abs,p.
+	f := floc.Fractal{PrimaryDiameter: 2e-9, PrimaryDensity: 2000, Dimension: 1.8}
+	p := Problem{Fractal: f, Diameter: 20e-9, Wavelength: 550e-9, MediumIndex: 1.34, Index: complex(1.5, 0.5)}
+	var ws Workspace
+	cs, err := FractalRDG{}.Evaluate(&ws, p, nil, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	e, _ := mie.Sphere(mie.SizeParameter(2e-9, 550e-9, 1.34), p.Index)
+	area := math.Pi * 1e-18
+	n := math.Pow(10, 1.8)
+	krg := 2 * math.Pi * 1.34 / 550e-9 * f.GyrationRadius(20e-9)
+	ratio := cs.Scattering / (n * n * e.Qsca * area)
+	if !(ratio < 1 && ratio > 1-2*krg*krg) {
+		t.Errorf("C_sca/(N²C_p) = %.6f, want within 2(kR_g)² = %.2g below 1", ratio, 2*krg*krg)
+	}
+	if math.Abs(cs.Absorption/(n*e.Qabs*area)-1) > 1e-12 {
+		t.Errorf("absorption not additive: %g vs %g", cs.Absorption, n*e.Qabs*area)
+	}
+}

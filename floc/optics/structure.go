@@ -28,8 +28,8 @@ const (
 	DobbinsMegaridis
 	// ExponentialCutoff is the closed form for an exponential cut-off
 	// (Sorensen 2001, from memory): S = sin[(D_f−1)·atan(qξ)] /
-	// [(D_f−1)·qξ·(1+q²ξ²)^((D_f−1)/2)] with R_g² = D_f(D_f+1)ξ²/2. It
-	// overshoots the power law near u ≈ 3 (Sorensen's criticism of it).
+	// [(D_f−1)·qξ·(1+q²ξ²)^((D_f−1)/2)] with R_g² = D_f(D_f+1)ξ²/2 (the
+	// tests confirm its Guinier limit). At D_f = 3 its tail falls as u⁻⁴.
 	ExponentialCutoff
 )
 
