@@ -92,13 +92,13 @@ var badCases = []badCase{
 		at: "strong", path: "tide", problem: "wrong type: want a mapping of keys, got a string", allowed: "keys m2, s2"},
 	// --- units
 	{name: "missing unit", edits: [][2]string{{`  length: "80 km"`, `  length: 80`}},
-		at: "80 ", atAfter: "length:", path: "geometry.length", problem: "missing unit", allowed: ""},
+		at: "80 ", atAfter: "length:", path: "geometry.length", problem: "missing unit; allowed units: m, km", allowed: "0.5 km ≤ value ≤ 1000 km"},
 	{name: "unknown unit", edits: [][2]string{{`  discharge: "150 m3/s"    #`, `  discharge: "150 cfs"    #`}},
-		at: `"150 cfs"`, path: "river.discharge", problem: `unknown unit "cfs"; allowed units: m3/s, L/s`},
+		at: `"150 cfs"`, path: "river.discharge", problem: `unknown unit "cfs"; allowed units: m3/s, L/s`, allowed: "0 m3/s ≤ value ≤ 1e+06 m3/s"},
 	{name: "wrong dimension", edits: [][2]string{{`  temperature: "12 degC"`, `  temperature: "12 m"`}},
-		at: `"12 m"`, atAfter: "river:", path: "river.temperature", problem: `unit "m" is a length, but a temperature is wanted; allowed units: degC, K`},
+		at: `"12 m"`, atAfter: "river:", path: "river.temperature", problem: `unit "m" is a length, but a temperature is wanted; allowed units: degC, K`, allowed: "-2 degC ≤ value ≤ 40 degC"},
 	{name: "unit of the right dimension not accepted for the field", edits: [][2]string{{`density: "2650 kg/m3"  # density`, `density: "2650 mg/L"  # density`}},
-		at: `"2650 mg/L"`, path: "populations[3].density", problem: `unit "mg/L" is not accepted for a density; allowed units: kg/m3, g/cm3, g/mL`},
+		at: `"2650 mg/L"`, path: "populations[3].density", problem: `unit "mg/L" is not accepted for a density; allowed units: kg/m3, g/cm3, g/mL`, allowed: "800 kg/m3 ≤ value ≤ 6000 kg/m3"},
 	// --- ranges
 	{name: "negative depth", edits: [][2]string{{`  depth: "10 m"`, `  depth: "-10 m"`}},
 		at: `"-10 m"`, path: "geometry.depth", problem: "out of range", allowed: "0.1 m ≤ value ≤ 1000 m"},

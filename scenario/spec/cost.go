@@ -144,13 +144,14 @@ func EstimateMixture(m Mixture) Cost {
 				k := math.Pi * costWaterIndex / lambda
 				// primaries once per wavelength
 				c.MieTerms += wiscombeTerms(k * p.Floc.PrimarySize)
-				for i := range costFlocSizes {
-					d := logStep(lo, hi, costFlocSizes, i)
-					if p.Floc.Optics == FlocRDG {
-						c.MieTerms += costRDGQuadrature
-					} else {
-						c.MieTerms += wiscombeTerms(k * d)
-					}
+				if p.Floc.Optics == FlocRDG {
+					c.MieTerms += costFlocSizes * costRDGQuadrature
+					continue
+				}
+				d, r := logGrid(lo, hi, costFlocSizes)
+				for range costFlocSizes {
+					c.MieTerms += wiscombeTerms(k * d)
+					d *= r
 				}
 			}
 			continue
@@ -159,8 +160,10 @@ func EstimateMixture(m Mixture) Cost {
 		n := bins * costSubPoints
 		for _, lambda := range m.Optics.Wavelengths {
 			k := math.Pi * costWaterIndex / lambda
-			for i := range n {
-				c.MieTerms += wiscombeTerms(k * logStep(lo, hi, n, i))
+			d, r := logGrid(lo, hi, n)
+			for range n {
+				c.MieTerms += wiscombeTerms(k * d)
+				d *= r
 			}
 		}
 	}
@@ -207,11 +210,14 @@ func sizeSpan(s SizeDistribution) (lo, hi float64) {
 	return 0.1e-6, 500e-6
 }
 
-func logStep(lo, hi float64, n, i int) float64 {
-	if n <= 1 || lo <= 0 || hi <= lo {
-		return math.Max(lo, 0)
+// logGrid returns the first centre and the ratio of n bins spaced evenly in
+// ln D over [lo, hi]: centres lo·r^(i+½) with r = (hi/lo)^(1/n).
+func logGrid(lo, hi float64, n int) (first, ratio float64) {
+	if n < 1 || !(lo > 0) || !(hi > lo) {
+		return math.Max(lo, 0), 1
 	}
-	return lo * math.Pow(hi/lo, (float64(i)+0.5)/float64(n))
+	r := math.Pow(hi/lo, 1/float64(n))
+	return lo * math.Sqrt(r), r
 }
 
 // String prints the estimate as a few aligned lines.

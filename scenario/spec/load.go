@@ -395,7 +395,10 @@ func classNames(cs []SedimentClass) []string {
 // {series: [{time, value}, ...], max_gap}.
 func (d *decoder) signal(n *yaml.Node, path string, k kind, r interval) Signal {
 	if n.Kind == yaml.ScalarNode {
-		v, _ := d.quantity(n, path, k, r)
+		v, ok := d.quantity(n, path, k, r)
+		if !ok {
+			return Signal{}
+		}
 		return Signal{Values: []float64{v}}
 	}
 	o := d.object(n, path, "series", "max_gap")
@@ -411,8 +414,10 @@ func (d *decoder) signal(n *yaml.Node, path string, k kind, r interval) Signal {
 		s.Times = append(s.Times, t)
 		s.Values = append(s.Values, v)
 	}
+	// A series with a bad sample comes back empty, so that the checks
+	// across sections do not report on half-read data.
 	if !ok || len(s.Times) < 2 {
-		return s
+		return Signal{}
 	}
 	sorted := true
 	for i := 1; i < len(s.Times); i++ {
@@ -423,7 +428,7 @@ func (d *decoder) signal(n *yaml.Node, path string, k kind, r interval) Signal {
 		}
 	}
 	if !sorted {
-		return s
+		return Signal{}
 	}
 	// Gap check: default maximum gap is 1.5 times the median sampling
 	// interval, so that one missing sample in a regular record (a gap of
@@ -436,7 +441,7 @@ func (d *decoder) signal(n *yaml.Node, path string, k kind, r interval) Signal {
 	if gn := o.get("max_gap"); gn != nil {
 		g, ok := d.quantity(gn, o.at("max_gap"), kShortTime, openLo(0, 3650*86400))
 		if !ok {
-			return s
+			return Signal{}
 		}
 		maxGap = g
 	}

@@ -247,3 +247,19 @@ func TestBadSizeTable(t *testing.T) {
 		t.Errorf("got %v", err)
 	}
 }
+
+// TestSyntaxError: the YAML parser reports a line but no column.
+func TestSyntaxError(t *testing.T) {
+	doc := "geometry:\n  length: \"80 km\"\n  cells: [1, 2\nriver: {}\n"
+	_, err := Parse("syntax.yaml", []byte(doc))
+	list, ok := err.(ErrorList)
+	if !ok || len(list) != 1 || list[0].Line == 0 || !strings.HasPrefix(err.Error(), "syntax.yaml:"+itoa(list[0].Line)+": YAML syntax: ") {
+		t.Errorf("got %v", err)
+	}
+	for _, bad := range []string{"", "# only a comment\n", "a: 1\n---\nb: 2\n"} {
+		_, err := Parse("x.yaml", []byte(bad))
+		if !IsInvalid(err) {
+			t.Errorf("%q: got %v", bad, err)
+		}
+	}
+}
