@@ -125,6 +125,22 @@
 // backscattering O(x²) (seconds at x ≈ 10⁴), which Composite needs only for
 // flocs of a few primaries.
 //
+// # Use in a scenario
+//
+// For one sediment class at one place and time:
+//
+//  1. floc.Model.Equilibrium or Step gives the median floc size from shear,
+//     concentration and salinity; Model.Population adds the spread and the
+//     unflocculated fraction.
+//  2. A kernel table built once per run, kernel.Build(Evaluator{…}, spec)
+//     with spec.Edges from the primary diameter upward (SubStep 1e9 and
+//     BackscatterSub 1 are enough for flocs: their cross-sections are smooth
+//     in floc size), holds the per-floc cross-sections.
+//  3. floc.Population.BinNumbers turns the class's mass concentration into
+//     floc numbers per bin; the bulk IOPs are the dot products with the
+//     table (mie/kernel). The unflocculated primaries go through a sphere
+//     kernel of package mie/kernel.
+//
 // # Units
 //
 // SI: diameters and vacuum wavelengths in m, cross-sections in m²,

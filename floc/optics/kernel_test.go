@@ -75,13 +75,21 @@ func TestKernelMatchesDirect(t *testing.T) {
 }
 
 // BenchmarkKernel builds the kernel: 100 floc sizes (4 µm–1 mm) ×
-// 20 wavelengths (400–780 nm), 4 angles, 3 sub-points per bin. Per-size
-// cost = ns/op ÷ 6000 evaluations.
+// 20 wavelengths (400–780 nm), 4 angles, 3 sub-points per bin (b_b at 1 of
+// them for "bbsub1"). Per-size cost = ns/op ÷ 2000 cells.
 func BenchmarkKernel(b *testing.B) {
-	for _, m := range []Method{Composite{}, FractalRDG{}} {
-		b.Run(m.Name(), func(b *testing.B) {
-			ev := Evaluator{Method: m, Fractal: floc.DefaultFractal, Index: mineralAbs}
+	for _, c := range []struct {
+		m     Method
+		bbSub int
+	}{{Composite{}, 0}, {Composite{}, 1}, {FractalRDG{}, 0}} {
+		name := c.m.Name()
+		if c.bbSub > 0 {
+			name += "/bbsub1"
+		}
+		b.Run(name, func(b *testing.B) {
+			ev := Evaluator{Method: c.m, Fractal: floc.DefaultFractal, Index: mineralAbs}
 			spec := kernelSpec(100, 20, 0)
+			spec.BackscatterSub = c.bbSub
 			b.ReportAllocs()
 			for b.Loop() {
 				if _, err := kernel.Build(ev, spec); err != nil {
