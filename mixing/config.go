@@ -97,6 +97,9 @@ type Closure struct {
 	HalineContraction float64 // β, PSU⁻¹, (0, 0.01]
 	InterfaceFriction float64 // c_i, interfacial drag (shear production in the upper layer), –, [0, 0.05]
 	MinLayerFraction  float64 // smallest allowed lower-layer fraction of the depth, –, [0.02, 0.45]
+	// Entrainment adds Turner (1986) entrainment by the residual exchange-flow
+	// shear to the tidal mixing between the layers. Off by default (doc.go).
+	Entrainment bool
 }
 
 // RunControl controls the time integration.

@@ -134,6 +134,18 @@ func MaximalExchange(qR, h, gp, amin float64) (q, a float64) {
 	return f(a), a
 }
 
+// Entrainment returns the entrainment coefficient E = w_e/|Δu| of a sheared
+// density interface at bulk Richardson number ri (Turner 1986, J. Fluid Mech.
+// 173:431, fit to Ellison & Turner 1959): E = (0.08 − 0.1·Ri)/(1 + 5·Ri) for
+// 0 ≤ Ri < 0.8, 0 above; Ri < 0 (unstable) is treated as 0.
+func Entrainment(ri float64) float64 {
+	if ri >= 0.8 {
+		return 0
+	}
+	ri = math.Max(ri, 0)
+	return (0.08 - 0.1*ri) / (1 + 5*ri)
+}
+
 // Knudsen returns the tidally averaged landward (qIn) and seaward (qOut)
 // exchange transports implied by steady water and salt balances,
 // Q_out = Q_R·s_in/(s_in − s_out), Q_in = Q_R·s_out/(s_in − s_out)

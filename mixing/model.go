@@ -7,9 +7,8 @@ import (
 
 // Numerical choices (see doc.go, "Numerics").
 const (
-	relaxTime   = 3600.0 // s, lower-layer volume relaxes to the exchange-flow interface on this time scale
-	filterTime  = PeriodM2
-	slackSpeed2 = 1e-4 // m² s⁻², floor on u² in the bulk Richardson number (0.01 m s⁻¹)
+	relaxTime  = 3600.0 // s, lower-layer volume relaxes to the exchange-flow interface on this time scale
+	filterTime = PeriodM2
 	// exchangeInterval is how often (s) the residual exchange flow is
 	// recomputed; it follows a salinity field filtered over an M2 period and the
 	// spring–neap envelope, both far slower.
@@ -49,7 +48,8 @@ type Model struct {
 	u              [Layers][]float64 // cells, m s⁻¹
 	g              [Layers][]float64 // cells, shear rate s⁻¹
 	umean, taub    []float64
-	ks             []float64
+	xv             []float64 // cells, vertical exchange velocity, m s⁻¹
+	utf            []float64
 	flux, mass     []float64
 	local          []Local
 	ws             []float64
@@ -125,7 +125,8 @@ func New(cfg Config, settling Settling) (*Model, error) {
 	}
 	m.sfilt, m.dsfilt = mk(n), mk(n)
 	m.q2res, m.f2f, m.kh, m.phi2 = mk(n+1), mk(n+1), mk(n+1), mk(n+1)
-	m.w, m.umean, m.taub, m.ks = mk(n), mk(n), mk(n), mk(n)
+	m.w, m.umean, m.taub, m.xv = mk(n), mk(n), mk(n), mk(n)
+	m.utf = mk(n + 1)
 	m.flux, m.mass = mk(n+1), mk(Layers*n)
 	m.local = make([]Local, n*Layers)
 	m.ws = mk(n * Layers * m.nc)
@@ -228,18 +229,17 @@ func (m *Model) exchange() {
 		ut := m.tidalVelocity(j, env)
 		km := cl.MixingCoefficient*cl.DragCoefficient*ut*hf + cl.BackgroundMixing
 		sx := 0.0
-		switch {
-		case j == m.n:
-		case j == 0:
-			// the sea as a ghost cell one cell length outside the mouth
-			sx = (m.cfg.Ocean.Salinity - m.sfilt[0]) / m.dx
-		default:
-			sx = (m.sfilt[j-1] - m.sfilt[j]) / m.dx
+		if j < m.n {
+			// gradient over one peak-to-peak tidal excursion 2U_T/ω (at least a cell)
+			half := math.Max(ut/omegaM2, 0.5*m.dx)
+			xa, xb := m.xf[j]-half, m.xf[j]+half
+			sx = (m.sbarAt(xa) - m.sbarAt(xb)) / (xb - xa)
 		}
 		if sx < 0 {
 			sx = 0
 		}
 		km += InterfacialViscosity(sx, hf, cl.InterfaceFriction, beta)
+		km = math.Max(km, 1e-9) // floor: no tide, no background and no gradient
 		p := Profile{River: m.qr / (bf * hf), Exchange: ExchangeVelocity(sx, hf, km, beta)}
 		zi, _ := p.Crossing()
 		zi = math.Max(zi, -1+fmin)
@@ -268,6 +268,27 @@ func (m *Model) exchange() {
 		m.phi2[j] = math.Exp(8.0 / 7 * math.Log(1+zi))
 		m.kh[j] = cl.DispersionCoeff * ut * bf
 	}
+}
+
+// sbarAt interpolates the filtered depth-mean salinity linearly between cell
+// centres; seaward of the first centre it runs to the ocean value one cell
+// length outside the mouth, landward of the last it is constant.
+func (m *Model) sbarAt(x float64) float64 {
+	n := m.n
+	f := x/m.dx - 0.5 // fractional cell index
+	switch {
+	case f >= float64(n-1):
+		return m.sfilt[n-1]
+	case f < 0:
+		// ghost sea cell at index −1
+		if f <= -1 {
+			return m.cfg.Ocean.Salinity
+		}
+		return m.sfilt[0] + f*(m.sfilt[0]-m.cfg.Ocean.Salinity)
+	}
+	i := int(f)
+	r := f - float64(i)
+	return m.sfilt[i] + r*(m.sfilt[i+1]-m.sfilt[i])
 }
 
 // transports sets the face transports per layer for a tidal elevation rate
@@ -305,17 +326,14 @@ func (m *Model) kinematics() {
 		htot := hk[0] + hk[1]
 		um := qs / (m.b[i] * htot)
 		m.umean[i] = um
+		// Bed stress, bed-generated turbulence and mixing follow the near-bed
+		// (lower-layer) velocity: under an arrested wedge they vanish.
+		ub := m.u[1][i]
 		sb := m.conc[0][1][i]
 		rho := rhoFresh * (1 + beta*sb)
-		m.taub[i] = rho * cd * um * um
-		ds := math.Max(0, m.conc[0][1][i]-m.conc[0][0][i])
-		ri := gravity * beta * ds * htot / math.Max(um*um, slackSpeed2)
-		k0 := cl.MixingCoefficient*cd*0.5*math.Pi*math.Abs(um)*htot + cl.BackgroundMixing
-		// Munk & Anderson (1948) damping of scalar diffusivity.
-		d := 1 + 3.33*ri
-		m.ks[i] = k0 / (d * math.Sqrt(d))
+		m.taub[i] = rho * cd * ub * ub
 		// Dissipation: log layer below, log layer plus interfacial shear above.
-		us := sq * math.Abs(um)
+		us := sq * math.Abs(ub)
 		us3 := us * us * us
 		// z0 from C_D = (κ/(ln(H/z0) − 1))² (depth-mean log law): ln(h2/z0) = ln(h2/H) + 1 + κ/√C_D.
 		h2 := hk[1]
@@ -323,6 +341,23 @@ func (m *Model) kinematics() {
 		e2 := us3 * math.Max(lr+1+kappa/sq, 1) / (kappa * h2)
 		du := math.Abs(m.u[0][i] - m.u[1][i])
 		e1 := us3*(-lr)/(kappa*hk[0]) + cl.InterfaceFriction*du*du*du/hk[0]
+		// Vertical exchange velocity between the layers: tidal mixing
+		// K_S/(H/2) with K_S = a·C_D·(π/2)|u|·H + K₀ (tidal mean a·C_D·U_T·H,
+		// equal to K_M as in MacCready 2004; not damped by stratification, see
+		// doc.go), plus, if Closure.Entrainment, entrainment by the residual
+		// exchange-flow shear Δu_r, w_e = E(Ri)·Δu_r (Turner 1986) with the layer
+		// Richardson number Ri = g'·h1·h2/(H·Δu_r²).
+		ks := cl.MixingCoefficient*cd*0.5*math.Pi*math.Abs(ub)*htot + cl.BackgroundMixing
+		xv := ks / (0.5 * htot)
+		// residual (exchange-flow) shear between the layers
+		q2 := 0.5 * (m.q2res[i] + m.q2res[i+1])
+		dur := math.Abs((-m.qr-q2)/(m.b[i]*hk[0]) - q2/(m.b[i]*h2))
+		if dur > 0 && cl.Entrainment {
+			gp := gravity * beta * math.Max(0, m.conc[0][1][i]-m.conc[0][0][i])
+			ri := gp * hk[0] * h2 / (htot * dur * dur)
+			xv += Entrainment(ri) * dur
+		}
+		m.xv[i] = xv
 		m.g[1][i] = math.Sqrt(e2 / viscosity(m.conc[1][1][i]))
 		m.g[0][i] = math.Sqrt(e1 / viscosity(m.conc[1][0][i]))
 	}

@@ -255,13 +255,17 @@ func TestPeriodicState(t *testing.T) {
 // landward limit of salt (bottom salinity of a few PSU), well above river and
 // sea concentrations (Coastal Wiki "Estuarine turbidity maximum"; CMECS
 // "Turbidity Maximum": around salinity 5; Burchard et al. 2018). Without
-// settling, sediment mixes conservatively and no maximum appears: the maximum
-// is not imposed.
+// settling (and no bed), sediment mixes conservatively and no maximum
+// appears: the maximum is not imposed.
 func TestTurbidityMaximum(t *testing.T) {
-	cls := Class{Name: "mud", RatingA: 0.02, Ocean: 0.01, ErosionRate: 1e-4, CriticalErosion: 0.15}
+	// A uniform erodible bed to start with, so that nothing marks a place.
+	cls := Class{Name: "mud", RatingA: 0.02, Ocean: 0.01, ErosionRate: 1e-4, CriticalErosion: 0.15, BedInventory: 10}
 	run := func(ws float64) Snapshot {
 		cfg := channel(500)
 		cfg.Sediment = []Class{cls}
+		if ws == 0 {
+			cfg.Sediment[0].BedInventory = 0 // no settling: no bed either
+		}
 		res, err := Run(cfg, ConstantSettling{ws})
 		if err != nil {
 			t.Fatal(err)
@@ -306,6 +310,7 @@ func TestArrestedWedge(t *testing.T) {
 	base.Geometry.Length = 100e3
 	base.Geometry.Cells = 100
 	base.Run.Duration = 25 * 86400
+	base.Closure.BackgroundMixing = 0 // Schijf & Schönfeld: no mixing across the interface
 	cl := base.Closure
 	h := base.Geometry.Depth
 	gp := gravity * cl.HalineContraction * base.Ocean.Salinity

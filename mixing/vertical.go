@@ -4,7 +4,7 @@ import "math"
 
 // vertical applies, cell by cell and implicitly (backward Euler, so stable
 // for any step and positive), turbulent exchange between the layers with
-// velocity K_S/(H/2) (DESIGN reference formulation), settling from the upper to
+// velocity K_S/(H/2) + w_e (DESIGN reference formulation; see kinematics), settling from the upper to
 // the lower layer and from the lower layer to the bed, deposition (continuous
 // or Krone 1962) and Partheniades (1965) erosion from a finite bed inventory.
 // Each 2×2 system conserves mass exactly.
@@ -13,8 +13,7 @@ func (m *Model) vertical(dt float64) {
 	for i := 0; i < n; i++ {
 		a := m.area[i]
 		v0, v1 := m.vol[0][i], m.vol[1][i]
-		htot := (v0 + v1) / a
-		ex := dt * m.ks[i] / (0.5 * htot) * a // m³ exchanged per unit concentration difference
+		ex := dt * m.xv[i] * a // m³ exchanged per unit concentration difference
 		for t := 0; t < 2+nc; t++ {
 			c0, c1 := m.conc[t][0][i], m.conc[t][1][i]
 			m0, m1 := c0*v0, c1*v1
