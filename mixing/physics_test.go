@@ -372,3 +372,56 @@ func TestTidalVelocity(t *testing.T) {
 		t.Errorf("peak flood velocity %.4f m/s, prism estimate %.4f", umax, want)
 	}
 }
+
+// TestTidalStraining: stratification grows on the ebb and is broken down on
+// the flood (tidal straining; Simpson, Brown, Matthews & Allen 1990,
+// Estuaries 13:125, from memory): mean stratification at low-water slack
+// exceeds that at high-water slack.
+func TestTidalStraining(t *testing.T) {
+	cfg := channel(500)
+	cfg.Run.Duration = 30 * 86400
+	// η = a·sin(ωt): high water at ωt = π/2, low water at 3π/2 (+2πk)
+	k := math.Floor(cfg.Run.Duration/PeriodM2) - 2
+	hw := (k + 0.25) * PeriodM2
+	lw := (k + 0.75) * PeriodM2
+	cfg.Run.Output = []float64{hw, lw}
+	res, err := Run(cfg, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	shw := res.Snapshots[0].Diagnostics.MeanStratification
+	slw := res.Snapshots[1].Diagnostics.MeanStratification
+	t.Logf("stratification at high water %.3f, at low water %.3f", shw, slw)
+	if !(slw > shw) {
+		t.Errorf("low-water stratification %.3f not above high-water %.3f", slw, shw)
+	}
+}
+
+// TestEntrainment: Turner (1986) coefficients against the research note's
+// §A7 table (checkvalues.py), and with entrainment switched on the estuary
+// is less stratified (entrainment only mixes).
+func TestEntrainment(t *testing.T) {
+	const tol = 5e-3 // table rounded to 3 significant figures
+	for _, c := range [][2]float64{{0.05, 0.0600}, {0.1, 0.0467}, {0.3, 0.0200}, {0.5, 0.00857}, {0.8, 0}, {2, 0}} {
+		if e := Entrainment(c[0]); math.Abs(e-c[1]) > tol*c[1]+1e-12 {
+			t.Errorf("E(%g) = %.5g, want %.5g", c[0], e, c[1])
+		}
+	}
+	off := channel(1000)
+	off.Run.Duration = 20 * 86400
+	on := off
+	on.Closure.Entrainment = true
+	ro, err := Run(off, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	rn, err := Run(on, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	so, sn := lastCycle(t, ro).Diagnostics.MeanStratification, lastCycle(t, rn).Diagnostics.MeanStratification
+	t.Logf("stratification without entrainment %.3f, with %.3f", so, sn)
+	if !(sn < so) {
+		t.Errorf("entrainment did not reduce stratification: %.3f vs %.3f", sn, so)
+	}
+}
