@@ -20,9 +20,9 @@ var water = refindex.ConstantMedium(1.34)
 // common practice) from 0.05 to 100 µm, 10 mg/L.
 var junge4 = psd.PowerLaw{N: 1, Slope: 4, Min: 0.05e-6, Max: 100e-6}
 
-var checkWavelengths = []float64{440e-9, 490e-9, 555e-9, 620e-9, 660e-9}
+var checkWavelengths = []float64{440e-9, 555e-9, 660e-9}
 
-const i555 = 2 // index of 555 nm in checkWavelengths
+const i555 = 1 // index of 555 nm in checkWavelengths
 
 var (
 	tablesOnce sync.Once

@@ -27,7 +27,7 @@
 //
 //	kind           index relative to water             apparent density
 //	mineral        1.15 + i·1e-3·e^(−(λ−400 nm)/109 nm)  2650 kg m⁻³
-//	detritus       1.05 + i·3e-4·e^(−0.011 (λ−400 nm))  700 kg m⁻³
+//	detritus       1.05, a ∝ e^(−0.011 nm⁻¹ (λ−400 nm))  700 kg m⁻³
 //	phytoplankton  core 1.02 (90 % of D), shell 1.10     300 kg m⁻³
 //	               + pigment absorption of the shell
 //

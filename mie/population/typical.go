@@ -35,20 +35,25 @@ func TypicalMineral(water refindex.Medium) Population {
 //
 //   - real index 1.05 relative to water, the organic mode of Zaneveld, Roach
 //     & Pak (1974);
-//   - imaginary part from an exponential absorption spectrum of slope
-//     0.011 nm⁻¹, the non-algal particle slope of Bricaud et al. (1998, J.
-//     Geophys. Res. 103:31033), with k = 3e-4 at 400 nm relative to water
-//     (from memory; order of magnitude only);
+//   - material absorption a(λ) = a(400 nm)·exp(−0.011 nm⁻¹·(λ − 400 nm)),
+//     the exponential with the non-algal particle slope of Bricaud et al.
+//     (1998, J. Geophys. Res. 103:31033), entering as k = a·λ0/(4π); a(400
+//     nm) = 1.26e4 m⁻¹ is k = 3e-4 relative to water of index 1.34 (from
+//     memory; order of magnitude only);
 //   - apparent density 700 kg m⁻³: dry organic matter of about 1400 kg m⁻³
 //     holding half its volume as water (both from memory).
 func TypicalDetritus(water refindex.Medium) Population {
+	const (
+		a400  = 4 * math.Pi * 3e-4 * 1.34 / 400e-9 // m⁻¹
+		slope = 0.011e9                            // m⁻¹ of wavelength (0.011 nm⁻¹)
+	)
 	return Population{
 		Name:    "detritus",
 		Kind:    Detritus,
 		Density: 700,
-		Index: refindex.Relative{
-			Rel:   refindex.Smooth{Ref: 400e-9, N: 1.05, K: 3e-4, S: 0.011e9},
-			Water: water,
+		Index: refindex.Absorbing{
+			Base:       refindex.Relative{Rel: refindex.Constant{N: 1.05}, Water: water},
+			Absorption: func(l float64) float64 { return a400 * math.Exp(-slope*(l-400e-9)) },
 		},
 	}
 }
