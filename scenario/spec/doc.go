@@ -17,6 +17,39 @@
 // section outside the document's set is an error that says which document
 // it belongs to. testdata/quell.yaml is a complete, commented scenario.
 //
+// # Sections and keys
+//
+// Required keys are marked *; "a | b" is a choice of forms.
+//
+//	geometry        length*, cells*, and either width* ("500 m" | {mouth*, convergence_length*})
+//	                with depth*, or table* [{distance, width, depth}, ...]
+//	river           discharge* ("150 m3/s" | {series*: [{time, value}, ...], max_gap}),
+//	                temperature*, sediment {<class>: "20 g/m3" | {a*, b*, reference_discharge}}
+//	tide            m2* {range | velocity}, s2 {range | velocity}
+//	ocean           salinity*, temperature*, sediment {<class>: "5 g/m3"}
+//	closures        drag_coefficient, mixing_coefficient, background_mixing,
+//	                dispersion_coefficient, interfacial_friction, erosion_rate,
+//	                critical_stress_erosion, critical_stress_deposition, bed_inventory
+//	sediment_classes [{name*, settling_velocity* ("0.5 mm/s" | floc), and the four bed keys}]
+//	water           cdom {river*, ocean*, reference_wavelength, slope},
+//	                chlorophyll {river*, ocean*}; mixture documents also
+//	                salinity*, temperature*, ocean_salinity
+//	populations     [{name*, kind* (mineral | organic | phytoplankton | floc), composition,
+//	                density*, refractive_index*, size*, concentration | class (+ class_fraction),
+//	                floc (kind floc: primary_size*, fractal_dimension*, optics, dynamic),
+//	                cell (kind phytoplankton: structure, core_fraction, shell_index)}]
+//	refractive_index relative_to* (water | vacuum), model* (constant: n*, k |
+//	                table: table* [{wavelength, n, k}] | smooth: n*, wavelength_ref*,
+//	                k_ref*, k_slope*, cauchy_b, k_floor)
+//	size            kind* (junge: slope*, dmin*, dmax* | lognormal: median*, gsd*,
+//	                by* (number | volume) | table: csv*)
+//	optics          wavelengths* (["440 nm", ...] | {from*, to*, step*}), angles,
+//	                size_bins, instruments [{name*, kind* (transmissometer: wavelength*,
+//	                path_length*, acceptance_angle* | backscatter: wavelength*, angle* |
+//	                turbidity)}]
+//	run             duration*, output_interval*, spin_up, stations
+//	outputs         directory, products (netcdf, csv, plots, summary), plot_formats (svg, png)
+//
 // # Values and units
 //
 // Every dimensional value is a string with a number and a unit: "1200 m3/s",

@@ -537,7 +537,7 @@ const (
 type FlocParams struct {
 	PrimarySize      float64    // primary particle diameter, m; smaller than the flocs
 	FractalDimension float64    // 1 < Df ≤ 3
-	Optics           FlocOptics // default FlocEffectiveMedium (see package floc)
+	Optics           FlocOptics // "" (not given): the floc package's documented default method
 	// Dynamic: floc size follows shear, concentration and salinity (floc
 	// package kinetics); the size distribution then sets the initial median
 	// and the width. Default true in a full scenario; always false in a
