@@ -24,3 +24,19 @@ func BenchmarkRun200Cells30Days(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkStep is one automatic step of the 200-cell, two-class estuary.
+func BenchmarkStep(b *testing.B) {
+	cfg := benchConfig()
+	cfg.Run.Duration = 1e9
+	m, err := New(cfg, ConstantSettling{3e-4, 1e-3})
+	if err != nil {
+		b.Fatal(err)
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		if err := m.Step(); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

@@ -122,16 +122,17 @@ type Series struct {
 }
 
 // DefaultClosure returns the published closure constants:
-//   - C_D = 2.5e-3, a depth-mean quadratic drag used by Geyer & MacCready (2014)
-//     style scalings (MacCready's scripts use 2.5e-3 to 3.1e-3).
-//   - a = 0.028 in K_M = K_S = a·C_D·U_T·H (MacCready 2007, J. Phys. Oceanogr. 37,
-//     as used by Ralston et al. 2008).
+//   - C_D = 2.5e-3, the depth-mean quadratic drag of MacCready's scripts for the
+//     Geyer & MacCready (2014) parameter space (public codes use 2.5e-3 to 3.1e-3).
+//   - a = 0.028 in K_M = K_S = a·C_D·U_T·H (MacCready's basin–strait code;
+//     attributed to MacCready 2007 and Ralston et al. 2008, from memory).
 //   - K₀ = 1e-5 m² s⁻¹ background mixing (common practice).
 //   - c = 0.035 in K_H = c·U_T·B (MacCready 2004, J. Phys. Oceanogr. 34:1296; from memory).
 //   - β = 7.7e-4 PSU⁻¹ (MacCready's scripts; Geyer & MacCready 2014).
 //   - c_i = 3e-4, interfacial drag at a salt wedge (Sørgard, Martinsen & Aas 1990, JGR 95,
 //     report 1.1e-4 to 4.2e-4).
 //   - lower layer at least 0.1 of the depth (numerical choice, see doc.go).
+//   - no entrainment beyond tidal mixing (see doc.go, departures).
 func DefaultClosure() Closure {
 	return Closure{
 		DragCoefficient:   2.5e-3,

@@ -55,7 +55,6 @@ type Model struct {
 	ws             []float64
 	bnd            []float64 // boundary values per tracer: ocean then river, [2*tracers]
 	saltFlux       [Layers][]float64
-	lastDt         float64
 	qr             float64
 
 	// accounting
@@ -496,12 +495,12 @@ func (m *Model) Step() error {
 	m.transports(m.tideRate(m.t))
 	dt := m.stepLimit()
 	next := m.acc.nextEvent(m, end)
-	if m.t+dt >= next-1e-9*next || m.t+dt > next {
-		dt = next - m.t
-	}
 	t1 := m.t + dt
-	if t1 == next {
-		t1 = next
+	if t1 >= next-1e-6*dt {
+		dt, t1 = next-m.t, next // land exactly on the event
+	}
+	if !(dt > 0) {
+		return fmt.Errorf("mixing: time step %g s at t = %g s (numerical failure; report it)", dt, m.t)
 	}
 	rate := (m.eta(t1) - m.eta(m.t)) / dt
 	m.transports(rate)
@@ -514,7 +513,6 @@ func (m *Model) Step() error {
 	m.advect(dt)
 	m.vertical(dt)
 	m.t = t1
-	m.lastDt = dt
 	// tidal filter of depth-mean salinity and stratification
 	f := dt / (filterTime + dt)
 	for i := 0; i < m.n; i++ {
