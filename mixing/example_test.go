@@ -29,9 +29,9 @@ func Example() {
 	d := last.Diagnostics
 	fmt.Printf("regime: %v (Fr_f = %.3f, M = %.2f)\n", d.Regime.Class, d.Regime.Froude, d.Regime.Mixing)
 	fmt.Printf("salt intrusion (2 PSU at the bed): %.0f km\n", d.IntrusionLength/1e3)
-	fmt.Printf("turbidity maximum: %.0f km from Quellmouth, %.0f mg/L, bottom salinity %.0f PSU\n", d.ETMPosition/1e3, d.ETMPeak*1e3, d.ETMBottomSalinity)
+	fmt.Printf("turbidity maximum: %.1f km from Quellmouth, %.0f mg/L, bottom salinity %.0f PSU\n", d.ETMPosition/1e3, d.ETMPeak*1e3, d.ETMBottomSalinity)
 	// Output:
 	// regime: partially mixed (Fr_f = 0.018, M = 0.69)
 	// salt intrusion (2 PSU at the bed): 24 km
-	// turbidity maximum: 20 km from Quellmouth, 93 mg/L, bottom salinity 6 PSU
+	// turbidity maximum: 20.5 km from Quellmouth, 93 mg/L, bottom salinity 6 PSU
 }

@@ -512,6 +512,12 @@ func (m *Model) Step() error {
 	}
 	m.advect(dt)
 	m.vertical(dt)
+	for i := 0; i < m.n; i++ {
+		if !(m.vol[0][i] > 0) || !(m.vol[1][i] > 0) || math.IsInf(m.vol[0][i]+m.vol[1][i], 0) {
+			return fmt.Errorf("mixing: layer volume in cell %d became %g, %g m³ at t = %g s (numerical failure; report it)",
+				i, m.vol[0][i], m.vol[1][i], t1)
+		}
+	}
 	m.t = t1
 	// tidal filter of depth-mean salinity and stratification
 	f := dt / (filterTime + dt)
@@ -627,5 +633,5 @@ func (m *Model) advect(dt float64) {
 }
 
 func errNonFinite(t float64, layer, cell int) error {
-	return fmt.Errorf("mixing: salinity became non-finite at t = %g s, layer %d, cell %d (numerical failure; report it)", t, layer, cell)
+	return fmt.Errorf("mixing: state became non-finite at t = %g s, layer %d, cell %d (numerical failure; report it)", t, layer, cell)
 }

@@ -92,9 +92,11 @@ func (m *Model) Run() (*Result, error) {
 			res.Cycles = append(res.Cycles, m.acc.snapshot(m))
 		}
 	}
-	for i := range res.Snapshots {
-		if err := checkFinite(&res.Snapshots[i]); err != nil {
-			return nil, err
+	for _, ss := range [][]Snapshot{res.Snapshots, res.Cycles} {
+		for i := range ss {
+			if err := checkFinite(&ss[i]); err != nil {
+				return nil, err
+			}
 		}
 	}
 	return res, nil
@@ -371,11 +373,26 @@ func (m *Model) Inflow() Inventory {
 }
 
 func checkFinite(s *Snapshot) error {
+	bad := func(v []float64) int {
+		for i, x := range v {
+			if math.IsNaN(x) || math.IsInf(x, 0) {
+				return i
+			}
+		}
+		return -1
+	}
 	for k := 0; k < Layers; k++ {
-		for i, v := range s.Salinity[k] {
-			if math.IsNaN(v) || math.IsInf(v, 0) {
+		fields := [][]float64{s.Thickness[k], s.Velocity[k], s.Salinity[k], s.Temperature[k], s.ShearRate[k]}
+		fields = append(fields, s.Concentration[k]...)
+		for _, f := range fields {
+			if i := bad(f); i >= 0 {
 				return errNonFinite(s.Time, k, i)
 			}
+		}
+	}
+	for _, f := range s.BedMass {
+		if i := bad(f); i >= 0 {
+			return errNonFinite(s.Time, 1, i)
 		}
 	}
 	return nil
