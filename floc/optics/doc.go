@@ -133,9 +133,13 @@
 //     concentration and salinity; Model.Population adds the spread and the
 //     unflocculated fraction.
 //  2. A kernel table built once per run, kernel.Build(Evaluator{…}, spec)
-//     with spec.Edges from the primary diameter upward (SubStep 1e9 and
-//     BackscatterSub 1 are enough for flocs: their cross-sections are smooth
-//     in floc size), holds the per-floc cross-sections.
+//     with spec.Edges from the primary diameter upward, holds the per-floc
+//     cross-sections. Beyond a few primary diameters floc cross-sections are
+//     smooth in floc size (the porous sphere's index is too close to water's
+//     for Mie ripple), but flocs of a few primaries are nearly solid and do
+//     ripple; with bins up to 0.055 wide in ln D (100 bins over 4 µm–1 mm)
+//     the default SubStep with MaxSub 16 gives bin averages within 2e-3 of
+//     converged ones (tested), at a fraction of the sphere default's cost.
 //  3. floc.Population.BinNumbers turns the class's mass concentration into
 //     floc numbers per bin; the bulk IOPs are the dot products with the
 //     table (mie/kernel). The unflocculated primaries go through a sphere

@@ -18,10 +18,10 @@ import (
 // are per floc; divide by Fractal.Aggregate(D).DryMass for values per unit
 // mass. The grid must start at or above the primary diameter.
 //
-// Sub-points: floc cross-sections have no Mie ripple in floc size (the
-// primaries are fixed and the porous sphere's index is within a few 10⁻³ of
-// water's for n_f ≤ 2.3), so a few sub-points per bin suffice; set
-// Spec.SubStep large (e.g. 1e9) so that Spec.MinSub (default 3) applies.
+// Sub-points: flocs larger than a few primaries have no Mie ripple in floc
+// size (the porous sphere's index is within about 10⁻² of water's), so a
+// modest Spec.MaxSub such as 16 suffices (see the package documentation);
+// the sphere default of 2048 would cost a hundred times more for no gain.
 type Evaluator struct {
 	Method  Method       // nil means Composite{}
 	Fractal floc.Fractal // structure of the flocs
