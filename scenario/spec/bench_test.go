@@ -1,6 +1,7 @@
 package spec
 
 import (
+	"math"
 	"os"
 	"testing"
 )
@@ -120,5 +121,18 @@ func TestAtInterpolation(t *testing.T) {
 	sig := hourlySeries()
 	if v := sig.At(1800); v != 150.5 {
 		t.Errorf("series midpoint %v", v)
+	}
+}
+
+func TestSignalAtSpecialCases(t *testing.T) {
+	s := Signal{Times: []float64{0, 10}, Values: []float64{1, 3}}
+	if v := s.At(math.NaN()); !math.IsNaN(v) {
+		t.Errorf("At(NaN) = %v", v)
+	}
+	if s.At(-5) != 1 || s.At(50) != 3 || s.At(10) != 3 || s.At(2.5) != 1.5 {
+		t.Error("clamping or interpolation wrong")
+	}
+	if (Signal{}).At(3) != 0 || (Signal{Values: []float64{7}}).At(-1) != 7 {
+		t.Error("empty or constant signal wrong")
 	}
 }

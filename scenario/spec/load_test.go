@@ -263,3 +263,24 @@ func TestSyntaxError(t *testing.T) {
 		}
 	}
 }
+
+func TestEndMembersSpecialCases(t *testing.T) {
+	e := EndMembers{River: 2, Ocean: 0.1}
+	cases := []struct{ s, so, want float64 }{
+		{0, 35, 2},          // river end
+		{35, 35, 0.1},       // ocean end
+		{17.5, 35, 1.05},    // halfway (linear mixing)
+		{40, 35, 0.1},       // clamped above the ocean salinity
+		{5, 0, 2},           // no ocean salinity: river value
+		{math.NaN(), 35, 2}, // NaN salinity: river value
+	}
+	for _, c := range cases {
+		if got := e.AtSalinity(c.s, c.so); !near(got, c.want, 1e-12) {
+			t.Errorf("AtSalinity(%v, %v) = %v, want %v", c.s, c.so, got, c.want)
+		}
+	}
+	r := Supply{Kind: SupplyRating, A: 0.02, B: -0.5, QRef: 1}
+	if r.At(0) != 0 || r.At(-1) != 0 || !near(r.At(4), 0.01, 1e-12) {
+		t.Errorf("rating special cases: %v %v %v", r.At(0), r.At(-1), r.At(4))
+	}
+}

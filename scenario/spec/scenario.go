@@ -123,10 +123,14 @@ type Signal struct {
 func (s Signal) IsConstant() bool { return len(s.Times) == 0 }
 
 // At returns the value at time t (s), interpolating linearly between
-// samples and holding the end values outside the series.
+// samples and holding the end values outside the series. An empty signal
+// gives 0; a NaN time gives NaN.
 func (s Signal) At(t float64) float64 {
 	if len(s.Values) == 0 {
 		return 0
+	}
+	if math.IsNaN(t) {
+		return t
 	}
 	if len(s.Times) == 0 || t <= s.Times[0] {
 		return s.Values[0]
@@ -185,7 +189,9 @@ type Supply struct {
 	A, B, QRef float64
 }
 
-// At returns the concentration (kg/m³) at river discharge q (m³/s).
+// At returns the concentration (kg/m³) at river discharge q (m³/s). A
+// rating curve gives 0 for q ≤ 0 (no flow carries no sediment), whatever
+// the sign of B.
 func (s Supply) At(q float64) float64 {
 	if s.Kind == SupplyRating {
 		if q <= 0 {
@@ -357,9 +363,14 @@ type EndMembers struct {
 }
 
 // AtSalinity mixes the end members linearly in salinity s for an ocean
-// salinity sOcean > 0 (conservative mixing; common practice).
+// salinity sOcean (conservative mixing; common practice). The salinity
+// fraction s/sOcean is clamped to [0, 1]; sOcean ≤ 0 or a NaN input gives
+// the river value.
 func (e EndMembers) AtSalinity(s, sOcean float64) float64 {
 	f := s / sOcean
+	if !(sOcean > 0) || math.IsNaN(f) {
+		return e.River
+	}
 	f = math.Max(0, math.Min(1, f))
 	return e.River + f*(e.Ocean-e.River)
 }
@@ -448,7 +459,11 @@ type RefractiveIndex struct {
 	KFloor                      float64 // IndexSmooth: wavelength-independent part of k (default 0)
 }
 
-// At returns n and k at vacuum wavelength lambda (m).
+// At returns n and k at vacuum wavelength lambda (m). A table is
+// interpolated linearly and held constant beyond its ends (validation
+// makes the table cover the optics wavelengths); the smooth model is
+// evaluated at any lambda > 0 (validation checks n at the optics band's
+// ends).
 func (r RefractiveIndex) At(lambda float64) (n, k float64) {
 	switch r.Model {
 	case IndexTable:
