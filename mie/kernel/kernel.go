@@ -179,7 +179,7 @@ func (s *Spec) plan() plan {
 	return p
 }
 
-// SubPointCount returns the number of strata S for a bin [lo, hi) (m) at
+// count returns the number of strata S for a bin [lo, hi) (m) at
 // vacuum wavelength l (m) in a medium of index nm, and whether the count was
 // capped by MaxSub (then sub-points are jittered).
 func (p plan) count(lo, hi, l, nm float64) (int, bool) {

@@ -32,7 +32,7 @@
 // package, a user's measured spectrum) can supply their own. Types that can
 // integrate themselves exactly implement PartialMomenter; others are
 // integrated numerically in ln D (composite Gauss–Legendre, panels at most
-// 0.05 wide in ln D, 8 nodes each: relative error below 1e-12 for smooth
+// 0.05 wide in ln D, 8 nodes each: relative error about 1e-12 for smooth
 // densities whose scale of variation in ln D is 0.1 or more; discontinuities
 // inside the range cost accuracy, so piecewise types should implement
 // PartialMomenter).
