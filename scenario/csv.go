@@ -1,0 +1,188 @@
+package scenario
+
+import (
+	"fmt"
+	"io"
+	"os"
+	"path/filepath"
+
+	"github.com/murk-optics/murk/mixing"
+	"github.com/murk-optics/murk/scenario/iop"
+	"github.com/murk-optics/murk/scenario/safefile"
+	"github.com/murk-optics/murk/scenario/spec"
+	"github.com/murk-optics/murk/scenario/table"
+)
+
+// layerName labels layer l.
+func layerName(l int) string {
+	if l == 0 {
+		return "upper"
+	}
+	return "lower"
+}
+
+// SectionTable is the along-channel section: one row per output time,
+// station and layer with the water state and the bulk IOPs at the
+// reference wavelength (nearest 550 nm), totals and particles.
+func (r *Result) SectionTable() *table.Table {
+	wref := refWavelength(r.Wavelengths)
+	t := &table.Table{Title: fmt.Sprintf("section along the channel (IOPs at %.0f nm)", r.Wavelengths[wref]*1e9)}
+	t.Columns = []table.Column{
+		{Name: "time", Unit: "h"}, {Name: "distance", Unit: "km"}, {Name: "layer"},
+		{Name: "thickness", Unit: "m"}, {Name: "salinity", Unit: "1"}, {Name: "temperature", Unit: "degC"},
+		{Name: "shear_rate", Unit: "s-1"},
+	}
+	for _, c := range r.Classes {
+		t.Columns = append(t.Columns, table.Column{Name: "ssc_" + c, Unit: "g m-3"})
+	}
+	for i, p := range r.Scenario.Mixture.Populations {
+		if r.hasFlocs(i) {
+			t.Columns = append(t.Columns, table.Column{Name: "floc_d50_" + p.Name, Unit: "um"})
+		}
+	}
+	t.Columns = append(t.Columns,
+		table.Column{Name: "a", Unit: "m-1"}, table.Column{Name: "b", Unit: "m-1"},
+		table.Column{Name: "bb", Unit: "m-1"}, table.Column{Name: "c", Unit: "m-1"},
+		table.Column{Name: "bb_over_b", Unit: "1"}, table.Column{Name: "bbp", Unit: "m-1"},
+		table.Column{Name: "bbp_over_bp", Unit: "1"}, table.Column{Name: "bbp_slope", Unit: "1"},
+		table.Column{Name: "cp_slope", Unit: "1"},
+	)
+	for ti := range r.Times {
+		for j := range r.Stations {
+			for l := 0; l < mixing.Layers; l++ {
+				p := r.Point(ti, j, l)
+				row := []any{r.Times[ti] / 3600, r.Stations[j] / 1e3, layerName(l), r.Thickness[p], r.Salinity[p], r.Temperature[p], r.ShearRate[p]}
+				for c := range r.Classes {
+					row = append(row, r.Concentration[p*r.NC()+c]*1e3)
+				}
+				for i := range r.Scenario.Mixture.Populations {
+					if r.hasFlocs(i) {
+						row = append(row, r.FlocDiameter[p*r.NP()+i]*1e6)
+					}
+				}
+				a := r.Sum(iop.Absorption, p, wref, nil)
+				b := r.Sum(iop.Scattering, p, wref, nil)
+				bb := r.Sum(iop.Backscattering, p, wref, nil)
+				bp := r.Sum(iop.Scattering, p, wref, Particles)
+				bbp := r.Sum(iop.Backscattering, p, wref, Particles)
+				row = append(row, a, b, bb, a+b, ratio(bb, b), bbp, ratio(bbp, bp), r.ParticleBbSlope[p], r.ParticleCSlope[p])
+				t.Add(row...)
+			}
+		}
+	}
+	return t
+}
+
+func ratio(x, y float64) float64 {
+	if y == 0 {
+		return 0
+	}
+	return x / y
+}
+
+func (r *Result) hasFlocs(i int) bool {
+	return r.Components[r.popComponent(i)].Population.Kind == spec.KindFloc
+}
+
+// popComponent returns the component index of population i.
+func (r *Result) popComponent(i int) int {
+	return r.NK() - r.NP() + i
+}
+
+// SpectraTable holds the spectra at every station, layer and output time:
+// each component's a, b and b_b and the totals.
+func (r *Result) SpectraTable() *table.Table {
+	t := &table.Table{Title: "spectra at stations"}
+	t.Columns = []table.Column{{Name: "time", Unit: "h"}, {Name: "distance", Unit: "km"}, {Name: "layer"}, {Name: "wavelength", Unit: "nm"}}
+	for _, c := range r.Components {
+		t.Columns = append(t.Columns, table.Column{Name: "a_" + c.Name, Unit: "m-1"})
+		if c.Kind == iop.Water || c.Kind == iop.Particles {
+			t.Columns = append(t.Columns, table.Column{Name: "b_" + c.Name, Unit: "m-1"}, table.Column{Name: "bb_" + c.Name, Unit: "m-1"})
+		}
+	}
+	t.Columns = append(t.Columns, table.Column{Name: "a", Unit: "m-1"}, table.Column{Name: "b", Unit: "m-1"},
+		table.Column{Name: "bb", Unit: "m-1"}, table.Column{Name: "c", Unit: "m-1"}, table.Column{Name: "bb_over_b", Unit: "1"})
+	for ti := range r.Times {
+		for j := range r.Stations {
+			for l := 0; l < mixing.Layers; l++ {
+				p := r.Point(ti, j, l)
+				for w, lam := range r.Wavelengths {
+					row := []any{r.Times[ti] / 3600, r.Stations[j] / 1e3, layerName(l), lam * 1e9}
+					for k, c := range r.Components {
+						row = append(row, r.Value(iop.Absorption, p, k, w))
+						if c.Kind == iop.Water || c.Kind == iop.Particles {
+							row = append(row, r.Value(iop.Scattering, p, k, w), r.Value(iop.Backscattering, p, k, w))
+						}
+					}
+					a := r.Sum(iop.Absorption, p, w, nil)
+					b := r.Sum(iop.Scattering, p, w, nil)
+					bb := r.Sum(iop.Backscattering, p, w, nil)
+					row = append(row, a, b, bb, a+b, ratio(bb, b))
+					t.Add(row...)
+				}
+			}
+		}
+	}
+	return t
+}
+
+// ApparentTable holds what is seen from above at every station and time:
+// R_rs and K_d per wavelength, with the Secchi depth, hue angle and
+// Forel-Ule class of the spectrum (computed from the upper layer, taken
+// as optically deep and homogeneous).
+func (r *Result) ApparentTable() *table.Table {
+	t := &table.Table{Title: "reflectance and clarity at stations (upper layer)"}
+	t.Columns = []table.Column{{Name: "time", Unit: "h"}, {Name: "distance", Unit: "km"}, {Name: "wavelength", Unit: "nm"},
+		{Name: "Rrs", Unit: "sr-1"}, {Name: "Kd", Unit: "m-1"}, {Name: "secchi_depth", Unit: "m"},
+		{Name: "hue_angle", Unit: "degree"}, {Name: "forel_ule", Unit: "1"}, {Name: "flags"}}
+	nw := r.NW()
+	for ti := range r.Times {
+		for j := range r.Stations {
+			q := ti*len(r.Stations) + j
+			for w, lam := range r.Wavelengths {
+				t.Add(r.Times[ti]/3600, r.Stations[j]/1e3, lam*1e9, r.Rrs[q*nw+w], r.Kd[q*nw+w],
+					r.Secchi[q], r.Hue[q], float64(r.ForelUle[q]), r.SeenFlags[q].String())
+			}
+		}
+	}
+	return t
+}
+
+// WriteTable writes t as CSV to path atomically.
+func WriteTable(path string, t *table.Table) error {
+	return safefile.Write(path, func(w io.Writer) error { return t.Write(w, table.CSV) })
+}
+
+// WriteCSV writes the CSV tables of the run into dir (created if needed)
+// and returns the paths written. Every file is written to a temporary file
+// and renamed, so an error leaves no partial file.
+func (r *Result) WriteCSV(dir string) ([]string, error) {
+	if err := os.MkdirAll(dir, 0o755); err != nil {
+		return nil, err
+	}
+	var out []string
+	for _, f := range []struct {
+		name string
+		t    *table.Table
+	}{
+		{"section.csv", r.SectionTable()},
+		{"spectra.csv", r.SpectraTable()},
+		{"apparent.csv", r.ApparentTable()},
+	} {
+		p := filepath.Join(dir, f.name)
+		if err := WriteTable(p, f.t); err != nil {
+			return out, err
+		}
+		out = append(out, p)
+	}
+	return out, nil
+}
+
+// WriteSummaryFile writes the text summary to dir/summary.txt atomically.
+func (r *Result) WriteSummaryFile(dir string) (string, error) {
+	if err := os.MkdirAll(dir, 0o755); err != nil {
+		return "", err
+	}
+	p := filepath.Join(dir, "summary.txt")
+	return p, safefile.Write(p, r.WriteSummary)
+}

@@ -1,0 +1,652 @@
+package scenario
+
+import (
+	"context"
+	"errors"
+	"fmt"
+	"io"
+	"math"
+	"runtime"
+	"sync"
+	"time"
+
+	"github.com/murk-optics/murk/mie/kernel"
+	"github.com/murk-optics/murk/mixing"
+	"github.com/murk-optics/murk/scenario/iop"
+	"github.com/murk-optics/murk/scenario/seen"
+	"github.com/murk-optics/murk/scenario/spec"
+	"github.com/murk-optics/murk/scenario/water"
+)
+
+// Options are the choices of a run that are not part of the scenario. The
+// zero value is ready to use.
+type Options struct {
+	// Workers is the number of goroutines for the kernels and the IOP
+	// evaluation; 0 means runtime.GOMAXPROCS(0). Results do not depend on
+	// it.
+	Workers int
+	// FlocInterval is the longest time between floc size updates, s; 0
+	// means DefaultFlocInterval.
+	FlocInterval float64
+	// Kernel tunes the sub-sampling of the particle kernels (package
+	// mie/kernel; zero fields take that package's defaults).
+	Kernel KernelOptions
+	// SolarZenith is the sun's zenith angle for reflectance, K_d and
+	// Secchi depth, rad, in [0, π/2); 0 means DefaultSolarZenith.
+	SolarZenith float64
+	// Progress, when not nil, receives one line per stage of the run.
+	Progress io.Writer
+}
+
+// KernelOptions are the sub-sampling controls of kernel.Spec. The zero
+// value means DefaultKernel; set Exact for the kernel package's own
+// defaults (fully resolved ripple, exact C_bb to x = 200).
+type KernelOptions struct {
+	SubStep        float64 // largest size-parameter spacing of sub-points
+	BackscatterX   float64 // size parameter beyond which C_bb is stratified
+	BackscatterSub int     // strata for C_bb beyond BackscatterX
+	Exact          bool    // use kernel.DefaultSubStep, DefaultBackscatterX, DefaultBackscatterSub
+}
+
+// DefaultKernel trades the ripple resolution of the kernels for speed:
+// sub-points every 0.5 in size parameter (two per ripple period instead of
+// five) and exact hemispherical backscattering up to x = 50 (then two
+// jittered strata per bin). Natural populations are broad (Junge or
+// lognormal with σg ≥ 1.5), so a bulk IOP sums hundreds of ripple periods
+// and the aliasing averages out: the tests bound the change of bulk
+// a, b and b_b against the exact settings (TestDefaultKernelAccuracy);
+// the saving is a factor of three to five in the kernel build, the
+// dominant cost of a run.
+var DefaultKernel = KernelOptions{SubStep: 0.5, BackscatterX: 50, BackscatterSub: 2}
+
+// DefaultSolarZenith is 30°, a mid-latitude mid-morning sun inside the
+// 0–60° range of the K_d model's simulations (Lee et al. 2005; common
+// practice for a reference geometry).
+const DefaultSolarZenith = 30 * math.Pi / 180
+
+// Component kinds of a Result (the kinds of package iop).
+const (
+	KindWater     = iop.Water
+	KindDissolved = iop.Dissolved
+	KindPigment   = iop.Pigment
+	KindParticles = iop.Particles
+)
+
+// Component names one separable contribution to the IOPs.
+type Component struct {
+	Name string
+	Kind iop.Kind
+	// Population is the scenario population (KindParticles), else nil.
+	Population *spec.Population
+}
+
+// Result is a scenario run: the estuary state and the IOPs at every
+// station, layer and output time.
+//
+// Points are indexed p = (t·len(Stations) + j)·mixing.Layers + l for output
+// time t, station j and layer l (0 upper, 1 lower). Per point and
+// wavelength w, component k's absorption, scattering and backscattering are
+// A[(p·NK + k)·NW + w] and so on (NK components, NW wavelengths); the total
+// VSF is VSF[(p·NW + w)·NA + a]. The column-wide apparent properties use
+// the upper layer and are indexed by q = t·len(Stations) + j.
+type Result struct {
+	Scenario    spec.Scenario
+	Wavelengths []float64 // vacuum wavelength, m
+	Angles      []float64 // scattering angles, rad
+	Times       []float64 // output times, s since the start of the spin-up
+	Stations    []float64 // distance from the mouth, m
+	Classes     []string  // sediment classes
+	Components  []Component
+	Estuary     *mixing.Result // snapshots at Times
+
+	// State per point.
+	Salinity, Temperature, ShearRate, Thickness []float64 // PSU, °C, s⁻¹, m
+	Concentration                               []float64 // kg m⁻³, [p·NC + class]
+	FlocDiameter                                []float64 // median of floc mass, m, [p·NP + population]; 0 for non-floc populations
+
+	A, B, Bb []float64 // m⁻¹ per component
+	VSF      []float64 // m⁻¹ sr⁻¹, total
+
+	// Derived per point.
+	ParticleBbSlope []float64 // γ of b_bp(λ) ∝ λ^−γ over all wavelengths, 1
+	ParticleCSlope  []float64 // γ of c_p(λ), 1
+
+	// Apparent properties per station and time (upper layer).
+	Rrs, Kd   []float64 // sr⁻¹ and m⁻¹, [q·NW + w]
+	Secchi    []float64 // m
+	Hue       []float64 // degree
+	ForelUle  []int     // 1–21, 0 undefined
+	SeenFlags []seen.Flag
+
+	Summary Summary
+}
+
+// NW, NA, NK, NC, NP: grid sizes.
+func (r *Result) NW() int { return len(r.Wavelengths) }
+func (r *Result) NA() int { return len(r.Angles) }
+func (r *Result) NK() int { return len(r.Components) }
+func (r *Result) NC() int { return len(r.Classes) }
+func (r *Result) NP() int { return len(r.Scenario.Mixture.Populations) }
+
+// Point returns the point index of output time t, station j and layer l.
+func (r *Result) Point(t, j, l int) int { return (t*len(r.Stations)+j)*mixing.Layers + l }
+
+// Value returns quantity q of component k at point p and wavelength w.
+func (r *Result) Value(q iop.Quantity, p, k, w int) float64 {
+	i := (p*r.NK()+k)*r.NW() + w
+	switch q {
+	case iop.Absorption:
+		return r.A[i]
+	case iop.Scattering:
+		return r.B[i]
+	case iop.Backscattering:
+		return r.Bb[i]
+	case iop.Attenuation:
+		return r.A[i] + r.B[i]
+	}
+	return math.NaN()
+}
+
+// Sum returns quantity q summed over the components for which keep is true
+// (all when keep is nil) at point p and wavelength w.
+func (r *Result) Sum(q iop.Quantity, p, w int, keep func(Component) bool) float64 {
+	s := 0.0
+	for k, c := range r.Components {
+		if keep == nil || keep(c) {
+			s += r.Value(q, p, k, w)
+		}
+	}
+	return s
+}
+
+// Particles selects the particle components for Sum.
+func Particles(c Component) bool { return c.Kind == iop.Particles }
+
+// Run runs a validated scenario end to end: the estuary model coupled to
+// the floc model, the kernels of every population (once), and the IOPs and
+// apparent properties at every station, layer and output time. It honours
+// ctx between stages and between output times.
+func Run(ctx context.Context, s spec.Scenario, opt Options) (*Result, error) {
+	opt, err := opt.normalise()
+	if err != nil {
+		return nil, err
+	}
+	start := time.Now()
+	progress := func(format string, a ...any) {
+		if opt.Progress != nil {
+			fmt.Fprintf(opt.Progress, "%6.2fs  "+format+"\n", append([]any{time.Since(start).Seconds()}, a...)...)
+		}
+	}
+	cfg, err := EstuaryConfig(s.Estuary)
+	if err != nil {
+		return nil, err
+	}
+
+	// 1. Kernels, once per population (independent of the estuary run).
+	progress("building optical kernels for %d populations", len(s.Mixture.Populations))
+	pops, err := buildPopulations(ctx, s, opt, referenceWater(s), progress)
+	if err != nil {
+		return nil, err
+	}
+
+	// 2. The estuary, with floc settling.
+	set, err := newSettling(s, cfg, pops, opt.FlocInterval)
+	if err != nil {
+		return nil, err
+	}
+	if err := ctx.Err(); err != nil {
+		return nil, err
+	}
+	progress("running the estuary model: %d cells, %.1f days", cfg.Geometry.Cells, cfg.Run.Duration/86400)
+	var ms mixing.Settling
+	if len(cfg.Sediment) > 0 {
+		ms = set
+	}
+	est, err := mixing.Run(cfg, ms)
+	if err != nil {
+		return nil, err
+	}
+	if len(est.Snapshots) != len(cfg.Run.Output) {
+		return nil, fmt.Errorf("scenario: estuary model returned %d snapshots for %d output times", len(est.Snapshots), len(cfg.Run.Output))
+	}
+
+	// 3. IOPs at every station, layer and time: cheap weighted sums.
+	r := newResult(s, cfg, est, pops)
+	progress("evaluating IOPs at %d stations × %d layers × %d times", len(r.Stations), mixing.Layers, len(r.Times))
+	if err := r.evaluate(ctx, set, pops, opt); err != nil {
+		return nil, err
+	}
+	r.Summary = summarise(r)
+	progress("done")
+	return r, nil
+}
+
+// buildPopulations builds the kernel of every population in the reference
+// water ref: the expensive part of the optics, once per run.
+func buildPopulations(ctx context.Context, s spec.Scenario, opt Options, ref water.Medium, progress func(string, ...any)) ([]*popOptics, error) {
+	wref, err := ref.IndexFunc()
+	if err != nil {
+		return nil, err
+	}
+	pops := make([]*popOptics, len(s.Mixture.Populations))
+	for i, p := range s.Mixture.Populations {
+		if err := ctx.Err(); err != nil {
+			return nil, err
+		}
+		if pops[i], err = buildPopulation(p, s, opt, wref, ref); err != nil {
+			return nil, err
+		}
+		progress("  kernel %q: %d bins", p.Name, pops[i].table.NBins())
+	}
+	return pops, nil
+}
+
+// normalise fills the zero fields of opt.
+func (opt Options) normalise() (Options, error) {
+	if opt.Workers <= 0 {
+		opt.Workers = runtime.GOMAXPROCS(0)
+	}
+	if opt.FlocInterval <= 0 {
+		opt.FlocInterval = DefaultFlocInterval
+	}
+	if opt.Kernel == (KernelOptions{}) {
+		opt.Kernel = DefaultKernel
+	}
+	if opt.Kernel.Exact {
+		opt.Kernel = KernelOptions{}
+	}
+	if opt.SolarZenith == 0 {
+		opt.SolarZenith = DefaultSolarZenith
+	}
+	if !(opt.SolarZenith > 0 && opt.SolarZenith < math.Pi/2) {
+		return opt, fmt.Errorf("scenario: Options.SolarZenith %g rad outside (0, π/2)", opt.SolarZenith)
+	}
+	return opt, nil
+}
+
+// newSettling builds the coupling of the estuary to the flocs.
+func newSettling(s spec.Scenario, cfg mixing.Config, pops []*popOptics, interval float64) (*settling, error) {
+	e := s.Estuary
+	set := &settling{nc: len(e.Classes), interval: interval, outputs: cfg.Run.Output}
+	set.constant = make([]float64, len(e.Classes))
+	for k, c := range e.Classes {
+		if c.Settling != spec.SettlingFloc {
+			set.constant[k] = c.SettlingVelocity
+			continue
+		}
+		set.constant[k] = math.NaN()
+		var po *popOptics
+		for _, p := range pops {
+			if p.isFloc && p.spec.ClassIndex == k {
+				po = p
+				break
+			}
+		}
+		if po == nil {
+			return nil, fmt.Errorf("scenario: sediment class %q settles as flocs but no floc population rides on it", c.Name)
+		}
+		tab, err := newWSTable(po.model, e.River.Temperature, e.Ocean.Temperature, 0)
+		if err != nil {
+			return nil, fmt.Errorf("scenario: class %q: %w", c.Name, err)
+		}
+		po.flocIdx = len(set.flocs)
+		set.flocs = append(set.flocs, flocClass{class: k, model: po.model, dynamic: po.dynamic, d0: po.d0, table: tab})
+	}
+	return set, nil
+}
+
+func newResult(s spec.Scenario, cfg mixing.Config, est *mixing.Result, pops []*popOptics) *Result {
+	r := &Result{
+		Scenario:    s,
+		Wavelengths: s.Mixture.Optics.Wavelengths,
+		Angles:      s.Mixture.Optics.Angles,
+		Times:       cfg.Run.Output,
+		Classes:     est.Classes,
+		Estuary:     est,
+	}
+	r.Stations = s.Estuary.Run.Stations
+	if len(r.Stations) == 0 {
+		r.Stations = est.X
+	}
+	r.Components = append(r.Components, Component{Name: "water", Kind: iop.Water}, Component{Name: "cdom", Kind: iop.Dissolved})
+	if pigmentApplies(s) {
+		r.Components = append(r.Components, Component{Name: "pigment", Kind: iop.Pigment})
+	}
+	for i := range s.Mixture.Populations {
+		r.Components = append(r.Components, Component{Name: s.Mixture.Populations[i].Name, Kind: iop.Particles, Population: &s.Mixture.Populations[i]})
+	}
+	np := len(r.Times) * len(r.Stations) * mixing.Layers
+	nq := len(r.Times) * len(r.Stations)
+	nw, nk := r.NW(), r.NK()
+	f := func(n int) []float64 { return make([]float64, n) }
+	r.Salinity, r.Temperature, r.ShearRate, r.Thickness = f(np), f(np), f(np), f(np)
+	r.Concentration = f(np * r.NC())
+	r.FlocDiameter = f(np * r.NP())
+	r.A, r.B, r.Bb = f(np*nk*nw), f(np*nk*nw), f(np*nk*nw)
+	r.VSF = f(np * nw * r.NA())
+	r.ParticleBbSlope, r.ParticleCSlope = f(np), f(np)
+	r.Rrs, r.Kd = f(nq*nw), f(nq*nw)
+	r.Secchi, r.Hue = f(nq), f(nq)
+	r.ForelUle = make([]int, nq)
+	r.SeenFlags = make([]seen.Flag, nq)
+	return r
+}
+
+// pigmentApplies: chlorophyll absorbs as a separate pigment component only
+// when no phytoplankton population is modelled as particles, whose own
+// absorption already holds the pigment (package iop, AddPigment).
+func pigmentApplies(s spec.Scenario) bool {
+	c := s.Mixture.Water.Chlorophyll
+	if c.River <= 0 && c.Ocean <= 0 {
+		return false
+	}
+	for _, p := range s.Mixture.Populations {
+		if p.Kind == spec.KindPhytoplankton {
+			return false
+		}
+	}
+	return true
+}
+
+// interp returns field f (per cell) at distance x by linear interpolation
+// between cell centres, held constant beyond the first and last centre.
+func interp(xc, f []float64, x float64) float64 {
+	n := len(xc)
+	if x <= xc[0] {
+		return f[0]
+	}
+	if x >= xc[n-1] {
+		return f[n-1]
+	}
+	dx := xc[1] - xc[0]
+	i := min(int((x-xc[0])/dx), n-2)
+	u := (x - xc[i]) / dx
+	return f[i]*(1-u) + f[i+1]*u
+}
+
+// worker holds the scratch space of one goroutine of the IOP evaluation.
+type worker struct {
+	spectra *iop.Spectra
+	total   iop.Component
+	part    iop.Component
+	popIOP  []kernel.IOP
+	numbers [][]float64
+	bbp, cp []float64
+	cdom    water.CDOMMixing
+	pigment water.ChlPowerLaw
+	obs     seen.Observer
+	app     seen.Apparent
+	bbw     []float64
+	mass    []float64 // per population: dry mass, kg m⁻³ (class-riding and flocs)
+	flocD   []float64 // per population: floc median diameter, m
+}
+
+// fill sets the worker's components to water of salinity sal and
+// temperature temp (°C) holding CDOM and pigment mixed at that salinity and
+// the populations at w.mass (class-riding ones and flocs; uniform ones at
+// their own concentration) with floc sizes w.flocD. This is the cheap part
+// of the optics: every population term is a dot product of its kernel with
+// bin numbers, or a scaled mass-specific spectrum.
+func (w *worker) fill(r *Result, pops []*popOptics, sal, temp float64) error {
+	comps := w.spectra.Components
+	k := 0
+	if err := w.spectra.FillWater(&comps[k], water.Medium{Salinity: sal, TemperatureC: min(max(temp, water.MinTemperatureC), water.MaxTemperatureC)}); err != nil {
+		return err
+	}
+	copy(w.bbw, comps[k].Bb)
+	k++
+	if err := w.spectra.FillCDOM(&comps[k], w.cdom, min(sal, w.cdom.OceanSalinity)); err != nil {
+		return err
+	}
+	k++
+	if r.Components[k].Kind == iop.Pigment {
+		chl := r.Scenario.Mixture.Water.Chlorophyll.AtSalinity(sal, w.cdom.OceanSalinity)
+		c := &comps[k]
+		c.Kind = iop.Pigment
+		for i, lam := range r.Wavelengths {
+			a, err := w.pigment.Absorption(lam, chl)
+			if err != nil {
+				return err
+			}
+			c.A[i], c.B[i], c.Bb[i] = a, 0, 0
+		}
+		for i := range c.VSF {
+			c.VSF[i] = 0
+		}
+		k++
+	}
+	for i, po := range pops {
+		c := &comps[k+i]
+		dst := &w.popIOP[i]
+		switch {
+		case po.isFloc:
+			if err := po.flocNumbers(w.numbers[i], w.mass[i], w.flocD[i], sal); err != nil {
+				return err
+			}
+			if err := po.table.Evaluate(w.numbers[i], dst); err != nil {
+				return err
+			}
+			setComponent(c, dst, 1)
+		case po.uniform:
+			setComponent(c, &po.iop, 1)
+		default:
+			setComponent(c, &po.iop, w.mass[i])
+		}
+		c.Mass = w.mass[i]
+	}
+	return nil
+}
+
+func (r *Result) newWorker(pops []*popOptics, opt Options) (*worker, error) {
+	sp, err := iop.New(r.Wavelengths, r.Angles)
+	if err != nil {
+		return nil, err
+	}
+	w := &worker{spectra: sp, obs: seen.Observer{SolarZenith: opt.SolarZenith}}
+	for _, c := range r.Components {
+		sp.Components = append(sp.Components, sp.Blank(c.Name, c.Kind, 0))
+	}
+	w.total = sp.Blank("total", iop.Particles, 0)
+	w.part = sp.Blank("particles", iop.Particles, 0)
+	for _, po := range pops {
+		w.popIOP = append(w.popIOP, po.table.NewIOP())
+		w.numbers = append(w.numbers, make([]float64, po.table.NBins()))
+	}
+	w.bbp, w.cp = make([]float64, r.NW()), make([]float64, r.NW())
+	w.bbw = make([]float64, r.NW())
+	w.mass, w.flocD = make([]float64, len(pops)), make([]float64, len(pops))
+	wa := r.Scenario.Mixture.Water
+	so := wa.OceanSalinity
+	if so <= 0 {
+		so = r.Scenario.Estuary.Ocean.Salinity
+	}
+	cd := wa.CDOM
+	lref := cd.ReferenceWavelength
+	if lref <= 0 {
+		lref = 440e-9
+	}
+	w.cdom = water.CDOMMixing{
+		River:         water.CDOM{RefWavelength: lref, ARef: cd.Absorption.River, Slope: cd.Slope},
+		Ocean:         water.CDOM{RefWavelength: lref, ARef: cd.Absorption.Ocean, Slope: cd.Slope},
+		OceanSalinity: so,
+	}
+	if err := w.cdom.Validate(); err != nil {
+		return nil, fmt.Errorf("scenario: CDOM: %w", err)
+	}
+	w.pigment = water.BricaudDefault()
+	return w, nil
+}
+
+// evaluate fills the per-point state and optics. Output times are shared
+// out to workers; every point is computed by one worker into its own slots,
+// so the result does not depend on the number of workers.
+func (r *Result) evaluate(ctx context.Context, set *settling, pops []*popOptics, opt Options) error {
+	nt := len(r.Times)
+	jobs := make(chan int)
+	errs := make([]error, nt)
+	var wg sync.WaitGroup
+	nwk := min(opt.Workers, nt)
+	workers := make([]*worker, nwk)
+	for i := range workers {
+		w, err := r.newWorker(pops, opt)
+		if err != nil {
+			return err
+		}
+		workers[i] = w
+	}
+	for _, w := range workers {
+		wg.Add(1)
+		go func(w *worker) {
+			defer wg.Done()
+			for t := range jobs {
+				errs[t] = r.evaluateTime(w, t, set, pops)
+			}
+		}(w)
+	}
+	var cerr error
+	for t := 0; t < nt; t++ {
+		if cerr = ctx.Err(); cerr != nil {
+			break
+		}
+		jobs <- t
+	}
+	close(jobs)
+	wg.Wait()
+	if cerr != nil {
+		return cerr
+	}
+	return errors.Join(errs...)
+}
+
+func (r *Result) evaluateTime(w *worker, t int, set *settling, pops []*popOptics) error {
+	snap := &r.Estuary.Snapshots[t]
+	x := r.Estuary.X
+	nc, np, nw, nk, na := r.NC(), r.NP(), r.NW(), r.NK(), r.NA()
+	ncell := len(x)
+	var sizes []float64
+	if t < len(set.sizes) {
+		sizes = set.sizes[t]
+	}
+	comps := w.spectra.Components
+	for j, xs := range r.Stations {
+		for l := 0; l < mixing.Layers; l++ {
+			p := r.Point(t, j, l)
+			sal := clampSalinity(interp(x, snap.Salinity[l], xs))
+			temp := interp(x, snap.Temperature[l], xs)
+			r.Salinity[p], r.Temperature[p] = sal, temp
+			r.ShearRate[p] = interp(x, snap.ShearRate[l], xs)
+			r.Thickness[p] = interp(x, snap.Thickness[l], xs)
+			for c := 0; c < nc; c++ {
+				r.Concentration[p*nc+c] = max(interp(x, snap.Concentration[l][c], xs), 0)
+			}
+			for i, po := range pops {
+				w.mass[i], w.flocD[i] = 0, 0
+				switch {
+				case po.uniform:
+				case po.isFloc:
+					w.mass[i] = po.fixedMass
+					if po.spec.ClassIndex >= 0 {
+						w.mass[i] = r.Concentration[p*nc+po.spec.ClassIndex] * po.spec.ClassFraction
+					}
+					d := po.d0
+					if po.flocIdx >= 0 && sizes != nil {
+						d = flocAt(x, sizes[po.flocIdx*ncell*mixing.Layers:], l, xs)
+					}
+					w.flocD[i] = d
+					r.FlocDiameter[p*np+i] = d
+				default:
+					w.mass[i] = r.Concentration[p*nc+po.spec.ClassIndex] * po.spec.ClassFraction
+				}
+			}
+			if err := w.fill(r, pops, sal, temp); err != nil {
+				return err
+			}
+			// Store the components.
+			for kk := range comps {
+				o := (p*nk + kk) * nw
+				copy(r.A[o:o+nw], comps[kk].A)
+				copy(r.B[o:o+nw], comps[kk].B)
+				copy(r.Bb[o:o+nw], comps[kk].Bb)
+			}
+			w.spectra.Sum(&w.total, nil)
+			copy(r.VSF[p*nw*na:(p+1)*nw*na], w.total.VSF)
+			w.spectra.Sum(&w.part, iop.OfKind(iop.Particles))
+			r.ParticleBbSlope[p] = slopeOrZero(w.spectra, &w.part, iop.Backscattering, r.Wavelengths)
+			r.ParticleCSlope[p] = slopeOrZero(w.spectra, &w.part, iop.Attenuation, r.Wavelengths)
+			if l == 0 {
+				if err := r.see(w, t*len(r.Stations)+j); err != nil {
+					return err
+				}
+			}
+		}
+	}
+	return nil
+}
+
+// flocAt interpolates the floc median diameter of layer l between cell
+// centres (in ln D: floc sizes vary over orders of magnitude).
+func flocAt(xc, d []float64, l int, x float64) float64 {
+	n := len(xc)
+	f := func(i int) float64 { return math.Log(d[i*mixing.Layers+l]) }
+	var v float64
+	switch {
+	case x <= xc[0]:
+		v = f(0)
+	case x >= xc[n-1]:
+		v = f(n - 1)
+	default:
+		dx := xc[1] - xc[0]
+		i := min(int((x-xc[0])/dx), n-2)
+		u := (x - xc[i]) / dx
+		v = f(i)*(1-u) + f(i+1)*u
+	}
+	return math.Exp(v)
+}
+
+// setComponent sets c to scale × the population IOP in.
+func setComponent(c *iop.Component, in *kernel.IOP, scale float64) {
+	for i := range c.A {
+		c.A[i] = scale * in.A[i]
+		c.B[i] = scale * in.B[i]
+		c.Bb[i] = scale * in.Bb[i]
+	}
+	for i := range c.VSF {
+		c.VSF[i] = scale * in.VSF[i]
+	}
+}
+
+// slopeOrZero fits the power-law slope of quantity q over the whole grid
+// (reference 550 nm); 0 where it cannot be fitted (no particles).
+func slopeOrZero(s *iop.Spectra, c *iop.Component, q iop.Quantity, wl []float64) float64 {
+	if len(wl) < 2 {
+		return 0
+	}
+	pl, err := s.Slope(c, q, wl[0], wl[len(wl)-1], 550e-9)
+	if err != nil {
+		return 0
+	}
+	return pl.Slope
+}
+
+// see computes the apparent properties of the upper layer at station and
+// time q from the worker's total.
+func (r *Result) see(w *worker, q int) error {
+	nw := r.NW()
+	sp := seen.Spectra{Wavelength: r.Wavelengths, A: w.total.A, B: w.total.B, Bb: w.total.Bb}
+	if err := w.obs.See(&w.app, sp, w.bbw); err != nil {
+		return err
+	}
+	copy(r.Rrs[q*nw:(q+1)*nw], w.app.Rrs)
+	copy(r.Kd[q*nw:(q+1)*nw], w.app.Kd)
+	r.SeenFlags[q] = w.app.Flags
+	if w.app.HasSecchi {
+		r.Secchi[q] = w.app.Secchi.Depth
+		r.SeenFlags[q] |= w.app.Secchi.Flags
+	}
+	if w.app.HasColour {
+		r.Hue[q] = w.app.Colour.HueAngle
+		r.ForelUle[q] = w.app.Colour.ForelUle
+		r.SeenFlags[q] |= w.app.Colour.Flags
+	}
+	return nil
+}

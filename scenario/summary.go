@@ -1,0 +1,335 @@
+package scenario
+
+import (
+	"fmt"
+	"io"
+	"math"
+	"strings"
+
+	"github.com/murk-optics/murk/mixing"
+	"github.com/murk-optics/murk/scenario/iop"
+	"github.com/murk-optics/murk/scenario/spec"
+)
+
+// Caution is printed with every summary.
+const Caution = `Cautions: these predictions are estimates for planning and for understanding the
+optics of the estuary; they are not a substitute for calibrated measurement. The
+turbidity readings are formazin-like ratios under stated assumptions, not
+certified FNU. Turbidity limits and plume compliance are set by local
+regulations and licensed practice, not by this model.`
+
+// StationSummary holds tidal means (over the output times) at one station.
+// Optical values are of the upper layer at the reference wavelength; the
+// concentration is the depth mean.
+type StationSummary struct {
+	Distance        float64 // m from the mouth
+	Salinity        float64 // upper layer, PSU
+	BottomSalinity  float64 // lower layer, PSU
+	Concentration   float64 // depth-mean suspended sediment, kg m⁻³
+	ParticleBb      float64 // b_bp, m⁻¹
+	ParticleBbRatio float64 // b_bp/b_p, 1
+	BbSlope         float64 // γ of b_bp, 1
+	Attenuation     float64 // total c, m⁻¹
+	FlocDiameter    float64 // median floc size (upper layer) of the first floc population, m; 0 if none
+	Dominant        string  // the population with the largest share of b_bp
+	DominantShare   float64 // its share, 1
+	MineralShare    float64 // share of b_bp from mineral particles and mineral flocs, 1
+	Secchi          float64 // m
+}
+
+// Summary is the digest of a run that the text summary prints.
+type Summary struct {
+	Name                 string
+	Regime               mixing.Regime
+	IntrusionLength      float64 // mean over outputs, m (bottom 2 PSU isohaline)
+	IntrusionMin         float64 // m
+	IntrusionMax         float64 // m
+	MeanStratification   float64 // mean over outputs, 1
+	ETMPosition          float64 // tidally averaged turbidity maximum, m from the mouth
+	ETMPeak              float64 // depth-mean concentration there, kg m⁻³
+	ETMBottomSalinity    float64 // mean lower-layer salinity there, PSU
+	ETMFlocDiameter      float64 // lower-layer median floc size at the station nearest the ETM, m (0: no flocs)
+	RiverFlocDiameter    float64 // lower-layer median floc size at the most landward station, m
+	ReferenceWavelength  float64 // m
+	Stations             []StationSummary
+	PigmentFromParticles bool // chlorophyll was not added as pigment (phytoplankton are particles)
+}
+
+// refWavelength returns the index of the grid wavelength nearest 550 nm,
+// the usual reference of ocean-colour backscattering spectra (common
+// practice).
+func refWavelength(wl []float64) int {
+	best := 0
+	for i, l := range wl {
+		if math.Abs(l-550e-9) < math.Abs(wl[best]-550e-9) {
+			best = i
+		}
+	}
+	return best
+}
+
+func isMineral(c Component) bool {
+	if c.Population == nil {
+		return false
+	}
+	return c.Population.Kind == spec.KindMineral || c.Population.Kind == spec.KindFloc
+}
+
+func summarise(r *Result) Summary {
+	s := Summary{Name: r.Scenario.Name}
+	est := r.Estuary
+	nt := len(r.Times)
+	if nt == 0 {
+		return s
+	}
+	s.IntrusionMin = math.Inf(1)
+	for i := range est.Snapshots {
+		d := est.Snapshots[i].Diagnostics
+		s.IntrusionLength += d.IntrusionLength / float64(nt)
+		s.MeanStratification += d.MeanStratification / float64(nt)
+		s.IntrusionMin = min(s.IntrusionMin, d.IntrusionLength)
+		s.IntrusionMax = max(s.IntrusionMax, d.IntrusionLength)
+	}
+	s.Regime = est.Snapshots[nt-1].Diagnostics.Regime
+
+	// Tidally averaged turbidity maximum on the model grid.
+	nx := len(est.X)
+	mean := make([]float64, nx)
+	sb := make([]float64, nx)
+	for i := range est.Snapshots {
+		sn := &est.Snapshots[i]
+		for c := 0; c < nx; c++ {
+			h := sn.Thickness[0][c] + sn.Thickness[1][c]
+			tot := 0.0
+			for l := 0; l < mixing.Layers; l++ {
+				for k := range sn.Concentration[l] {
+					tot += sn.Concentration[l][k][c] * sn.Thickness[l][c]
+				}
+			}
+			if h > 0 {
+				mean[c] += tot / h / float64(nt)
+			}
+			sb[c] += sn.Salinity[1][c] / float64(nt)
+		}
+	}
+	if len(r.Classes) > 0 {
+		best := 0
+		for c := range mean {
+			if mean[c] > mean[best] {
+				best = c
+			}
+		}
+		s.ETMPosition, s.ETMPeak, s.ETMBottomSalinity = est.X[best], mean[best], sb[best]
+	}
+
+	wref := refWavelength(r.Wavelengths)
+	s.ReferenceWavelength = r.Wavelengths[wref]
+	s.PigmentFromParticles = !pigmentApplies(r.Scenario) && (r.Scenario.Mixture.Water.Chlorophyll.River > 0 || r.Scenario.Mixture.Water.Chlorophyll.Ocean > 0)
+	firstFloc := -1
+	for i, p := range r.Scenario.Mixture.Populations {
+		if p.Kind == spec.KindFloc {
+			firstFloc = i
+			break
+		}
+	}
+	ns := len(r.Stations)
+	np := r.NP()
+	for j := range r.Stations {
+		st := StationSummary{Distance: r.Stations[j]}
+		share := make([]float64, r.NK())
+		var bbpSum float64
+		for t := 0; t < nt; t++ {
+			p0, p1 := r.Point(t, j, 0), r.Point(t, j, 1)
+			q := t*ns + j
+			f := 1 / float64(nt)
+			st.Salinity += r.Salinity[p0] * f
+			st.BottomSalinity += r.Salinity[p1] * f
+			h := r.Thickness[p0] + r.Thickness[p1]
+			for c := range r.Classes {
+				if h > 0 {
+					st.Concentration += (r.Concentration[p0*r.NC()+c]*r.Thickness[p0] + r.Concentration[p1*r.NC()+c]*r.Thickness[p1]) / h * f
+				}
+			}
+			bbp := r.Sum(iop.Backscattering, p0, wref, Particles)
+			bp := r.Sum(iop.Scattering, p0, wref, Particles)
+			st.ParticleBb += bbp * f
+			if bp > 0 {
+				st.ParticleBbRatio += bbp / bp * f
+			}
+			st.BbSlope += r.ParticleBbSlope[p0] * f
+			st.Attenuation += r.Sum(iop.Attenuation, p0, wref, nil) * f
+			st.Secchi += r.Secchi[q] * f
+			if firstFloc >= 0 {
+				st.FlocDiameter += math.Log(r.FlocDiameter[p0*np+firstFloc]) * f
+			}
+			for k := range r.Components {
+				if r.Components[k].Kind == iop.Particles {
+					v := r.Value(iop.Backscattering, p0, k, wref)
+					share[k] += v
+					bbpSum += v
+				}
+			}
+		}
+		if firstFloc >= 0 {
+			st.FlocDiameter = math.Exp(st.FlocDiameter)
+		}
+		if bbpSum > 0 {
+			for k, c := range r.Components {
+				if c.Kind != iop.Particles {
+					continue
+				}
+				if share[k]/bbpSum > st.DominantShare {
+					st.DominantShare, st.Dominant = share[k]/bbpSum, c.Name
+				}
+				if isMineral(c) {
+					st.MineralShare += share[k] / bbpSum
+				}
+			}
+		}
+		s.Stations = append(s.Stations, st)
+	}
+	if firstFloc >= 0 && ns > 0 {
+		near, head := 0, 0
+		for j, x := range r.Stations {
+			if math.Abs(x-s.ETMPosition) < math.Abs(r.Stations[near]-s.ETMPosition) {
+				near = j
+			}
+			if x > r.Stations[head] {
+				head = j
+			}
+		}
+		geo := func(j int) float64 {
+			v := 0.0
+			for t := 0; t < nt; t++ {
+				v += math.Log(r.FlocDiameter[r.Point(t, j, 1)*np+firstFloc]) / float64(nt)
+			}
+			return math.Exp(v)
+		}
+		s.ETMFlocDiameter, s.RiverFlocDiameter = geo(near), geo(head)
+	}
+	return s
+}
+
+// WriteSummary prints the text summary of a run.
+func (r *Result) WriteSummary(w io.Writer) error {
+	s := r.Summary
+	var b strings.Builder
+	name := s.Name
+	if name == "" {
+		name = "murk scenario"
+	}
+	fmt.Fprintf(&b, "%s\n%s\n\n", name, strings.Repeat("=", len([]rune(name))))
+	t0, t1 := r.Times[0], r.Times[len(r.Times)-1]
+	fmt.Fprintf(&b, "Run: %d output times from %.2f to %.2f days after the start (tidal means below), %d stations, %d wavelengths %.0f–%.0f nm.\n\n",
+		len(r.Times), t0/86400, t1/86400, len(r.Stations), r.NW(), r.Wavelengths[0]*1e9, r.Wavelengths[r.NW()-1]*1e9)
+
+	fmt.Fprintf(&b, "Estuary: %s (freshwater Froude number %.3g, mixing number %.3g; Geyer & MacCready 2014 map).\n",
+		s.Regime.Class, s.Regime.Froude, s.Regime.Mixing)
+	fmt.Fprintf(&b, "Salt intrusion (bottom %g PSU): %.1f km from the mouth on average (%.1f–%.1f km through the tide); mean stratification Δs/s̄ = %.2f.\n\n",
+		float64(BottomThreshold), s.IntrusionLength/1e3, s.IntrusionMin/1e3, s.IntrusionMax/1e3, s.MeanStratification)
+
+	if len(r.Classes) > 0 {
+		fmt.Fprintf(&b, "Turbidity maximum: %.1f km from the mouth, peak depth-mean suspended sediment %.3g g/m3, bottom salinity there %.1f PSU",
+			s.ETMPosition/1e3, s.ETMPeak*1e3, s.ETMBottomSalinity)
+		if s.IntrusionLength > 0 {
+			d := s.IntrusionLength - s.ETMPosition
+			if d >= 0 {
+				fmt.Fprintf(&b, " (%.1f km seaward of the salt limit).\n", d/1e3)
+			} else {
+				fmt.Fprintf(&b, " (%.1f km landward of the salt limit).\n", -d/1e3)
+			}
+		} else {
+			b.WriteString(".\n")
+		}
+		if s.ETMFlocDiameter > 0 {
+			fmt.Fprintf(&b, "Flocs near the bed: median %.0f µm near the turbidity maximum against %.0f µm at the landward end.\n",
+				s.ETMFlocDiameter*1e6, s.RiverFlocDiameter*1e6)
+		}
+		b.WriteString("\n")
+	}
+
+	fmt.Fprintf(&b, "Along the channel, river to sea (tidal means, upper layer, λ = %.0f nm; c is total attenuation):\n", s.ReferenceWavelength*1e9)
+	fmt.Fprintf(&b, "  %7s %6s %6s %9s %9s %7s %7s %7s %6s %7s  %s\n", "km", "S", "S_bed", "SSC g/m3", "b_bp 1/m", "γ_bbp", "bbp/bp", "c 1/m", "floc", "Secchi", "main backscatterer")
+	order := make([]int, len(s.Stations))
+	for i := range order {
+		order[i] = i
+	}
+	// river (landward, large distance) first
+	for i := 1; i < len(order); i++ {
+		for j := i; j > 0 && s.Stations[order[j]].Distance > s.Stations[order[j-1]].Distance; j-- {
+			order[j], order[j-1] = order[j-1], order[j]
+		}
+	}
+	for _, j := range order {
+		st := s.Stations[j]
+		floc := "–"
+		if st.FlocDiameter > 0 {
+			floc = fmt.Sprintf("%.0fµm", st.FlocDiameter*1e6)
+		}
+		fmt.Fprintf(&b, "  %7.1f %6.1f %6.1f %9.3g %9.3g %7.2f %7.4f %7.3g %6s %6.2fm  %s (%.0f %%)\n",
+			st.Distance/1e3, st.Salinity, st.BottomSalinity, st.Concentration*1e3, st.ParticleBb, st.BbSlope,
+			st.ParticleBbRatio, st.Attenuation, floc, st.Secchi, st.Dominant, 100*st.DominantShare)
+	}
+	b.WriteString("\n")
+	b.WriteString(r.interpretation())
+	if s.PigmentFromParticles {
+		b.WriteString("\nNote: chlorophyll is carried by the phytoplankton population's own absorption, so it is not added again as dissolved pigment.\n")
+	}
+	b.WriteString("\n")
+	b.WriteString(Caution)
+	b.WriteString("\n")
+	_, err := io.WriteString(w, b.String())
+	return err
+}
+
+// interpretation turns the station table into sentences: each states a
+// computed direction of change and the physical reason the model holds for
+// it, so that it is only printed when the numbers show it.
+func (r *Result) interpretation() string {
+	s := r.Summary
+	if len(s.Stations) < 2 {
+		return ""
+	}
+	var head, mouth, etm StationSummary
+	head, mouth = s.Stations[0], s.Stations[0]
+	etm = s.Stations[0]
+	for _, st := range s.Stations {
+		if st.Distance > head.Distance {
+			head = st
+		}
+		if st.Distance < mouth.Distance {
+			mouth = st
+		}
+		if math.Abs(st.Distance-s.ETMPosition) < math.Abs(etm.Distance-s.ETMPosition) {
+			etm = st
+		}
+	}
+	var b strings.Builder
+	b.WriteString("What the numbers say:\n")
+	peak := head
+	for _, st := range s.Stations {
+		if st.ParticleBb > peak.ParticleBb {
+			peak = st
+		}
+	}
+	fmt.Fprintf(&b, "- Backscattering b_bp goes from %.3g 1/m at the river end (%.0f km) to %.3g 1/m at the mouth, with its largest value %.3g 1/m at %.0f km.\n",
+		head.ParticleBb, head.Distance/1e3, mouth.ParticleBb, peak.ParticleBb, peak.Distance/1e3)
+	fmt.Fprintf(&b, "- Its spectral slope γ goes from %.2f (river) through %.2f (turbidity maximum) to %.2f (sea).", head.BbSlope, etm.BbSlope, mouth.BbSlope)
+	if etm.BbSlope < head.BbSlope {
+		b.WriteString(" A flatter spectrum (smaller γ) means larger particles: flocs formed at the salt front.\n")
+	} else {
+		b.WriteString(" A steeper spectrum (larger γ) means relatively more small particles.\n")
+	}
+	fmt.Fprintf(&b, "- The backscattering ratio b_bp/b_p goes from %.4f (river) through %.4f (turbidity maximum) to %.4f (sea); mineral particles and mineral flocs give %.0f %%, %.0f %% and %.0f %% of b_bp there.\n",
+		head.ParticleBbRatio, etm.ParticleBbRatio, mouth.ParticleBbRatio, 100*head.MineralShare, 100*etm.MineralShare, 100*mouth.MineralShare)
+	b.WriteString("  A high ratio marks dense, high-index mineral grains; soft organic particles and porous flocs scatter more of their light forward.\n")
+	if len(r.Classes) > 0 {
+		fmt.Fprintf(&b, "- Why the turbidity maximum sits at %.0f km: near-bed water flows landward with the salt and river water seaward above it;", s.ETMPosition/1e3)
+		b.WriteString(" sediment settling out of the upper layer is carried back up-estuary until the landward bottom flow ends, near the limit of salt.")
+		if s.ETMFlocDiameter > 0 && s.ETMFlocDiameter > s.RiverFlocDiameter {
+			fmt.Fprintf(&b, " Flocs grow in salt water (%.0f µm there against %.0f µm in fresh water), settle faster and are trapped more strongly.", s.ETMFlocDiameter*1e6, s.RiverFlocDiameter*1e6)
+		}
+		b.WriteString("\n")
+	}
+	return b.String()
+}
