@@ -376,3 +376,59 @@ func TestSnapshotsAndIndexing(t *testing.T) {
 		}
 	}
 }
+
+// TestEquivalentInputs: a geometry table describing a prismatic channel
+// gives the same run as the prismatic parameters, and a mouth velocity
+// amplitude gives the same run as the elevation amplitude it stands for
+// through the prism relation U = ω·a·P/(B·H) (identities of the input forms).
+func TestEquivalentInputs(t *testing.T) {
+	const tol = 1e-9 // PSU; the same arithmetic up to the order of operations
+	base := DefaultConfig()
+	base.Geometry.WidthConvergence = 0
+	base.Run.Duration = 2 * 86400
+	tab := base
+	g := base.Geometry
+	tab.Geometry.Table = []Section{{0, g.MouthWidth, g.Depth}, {g.Length, g.MouthWidth, g.Depth}}
+	vel := base
+	vel.Tide.M2Amplitude, vel.Tide.S2Amplitude = 0, 0
+	// prism of the whole prismatic channel over the mouth section: P/(B·H) = L/H
+	vel.Tide.M2Velocity = omegaM2 * base.Tide.M2Amplitude * g.Length / g.Depth
+	vel.Tide.S2Velocity = omegaS2 * base.Tide.S2Amplitude * g.Length / g.Depth
+	var last []float64
+	for i, cfg := range []Config{base, tab, vel} {
+		res, err := Run(cfg, nil)
+		if err != nil {
+			t.Fatal(err)
+		}
+		s := res.Cycles[len(res.Cycles)-1].Salinity[1]
+		if i > 0 {
+			for c := range s {
+				if math.Abs(s[c]-last[c]) > tol {
+					t.Fatalf("input form %d: cell %d salinity %.12g vs %.12g", i, c, s[c], last[c])
+				}
+			}
+		}
+		last = s
+	}
+}
+
+// TestShearRate: the layer dissipation rates average to the depth-mean log
+// layer value, and for u* = 0.05 m/s, H = 10 m, z0 = 1 mm, ν = 1e-6 m²/s the
+// depth-mean shear rate is Ḡ = √(ε̄/ν) = 16.8 s⁻¹ (research note §B4 table,
+// checkvalues.py).
+func TestShearRate(t *testing.T) {
+	const tol = 3e-3 // the table gives three figures
+	h, z0, us := 10.0, 1e-3, 0.05
+	sq := kappa / (math.Log(h/z0) - 1) // √C_D for this z0
+	for _, h2 := range []float64{1, 3, 5, 8} {
+		e1, e2 := logLayerDissipation(us*us*us, h, h2, sq)
+		mean := (e1*(h-h2) + e2*h2) / h
+		want := us * us * us * math.Log(h/z0) / (kappa * h)
+		if math.Abs(mean-want) > 1e-12*want {
+			t.Errorf("h2 = %g: mean ε %.10g, log layer %.10g", h2, mean, want)
+		}
+		if g := math.Sqrt(mean / 1e-6); math.Abs(g-16.8) > tol*16.8 {
+			t.Errorf("Ḡ = %.4g s⁻¹, want 16.8", g)
+		}
+	}
+}

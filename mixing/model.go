@@ -49,7 +49,6 @@ type Model struct {
 	g              [Layers][]float64 // cells, shear rate s⁻¹
 	umean, taub    []float64
 	xv             []float64 // cells, vertical exchange velocity, m s⁻¹
-	utf            []float64
 	flux, mass     []float64
 	local          []Local
 	ws             []float64
@@ -73,6 +72,12 @@ func New(cfg Config, settling Settling) (*Model, error) {
 	if len(cfg.Sediment) > 0 && settling == nil {
 		return nil, errNoSettling
 	}
+	// own copies of the slices, so that the caller may reuse cfg
+	cfg.Geometry.Table = append([]Section(nil), cfg.Geometry.Table...)
+	cfg.River.Series.Time = append([]float64(nil), cfg.River.Series.Time...)
+	cfg.River.Series.Value = append([]float64(nil), cfg.River.Series.Value...)
+	cfg.Sediment = append([]Class(nil), cfg.Sediment...)
+	cfg.Run.Output = append([]float64(nil), cfg.Run.Output...)
 	m := &Model{cfg: cfg, set: settling, n: cfg.Geometry.Cells, nc: len(cfg.Sediment)}
 	n := m.n
 	m.dx = cfg.Geometry.Length / float64(n)
@@ -125,7 +130,6 @@ func New(cfg Config, settling Settling) (*Model, error) {
 	m.sfilt, m.dsfilt = mk(n), mk(n)
 	m.q2res, m.f2f, m.kh, m.phi2 = mk(n+1), mk(n+1), mk(n+1), mk(n+1)
 	m.w, m.umean, m.taub, m.xv = mk(n), mk(n), mk(n), mk(n)
-	m.utf = mk(n + 1)
 	m.flux, m.mass = mk(n+1), mk(Layers*n)
 	m.local = make([]Local, n*Layers)
 	m.ws = mk(n * Layers * m.nc)
@@ -334,12 +338,10 @@ func (m *Model) kinematics() {
 		// Dissipation: log layer below, log layer plus interfacial shear above.
 		us := sq * math.Abs(ub)
 		us3 := us * us * us
-		// z0 from C_D = (κ/(ln(H/z0) − 1))² (depth-mean log law): ln(h2/z0) = ln(h2/H) + 1 + κ/√C_D.
 		h2 := hk[1]
-		lr := math.Log(h2 / htot)
-		e2 := us3 * math.Max(lr+1+kappa/sq, 1) / (kappa * h2)
+		e1, e2 := logLayerDissipation(us3, htot, h2, sq)
 		du := math.Abs(m.u[0][i] - m.u[1][i])
-		e1 := us3*(-lr)/(kappa*hk[0]) + cl.InterfaceFriction*du*du*du/hk[0]
+		e1 += cl.InterfaceFriction * du * du * du / hk[0]
 		// Vertical exchange velocity between the layers: tidal mixing
 		// K_S/(H/2) with K_S = a·C_D·(π/2)|u|·H + K₀ (tidal mean a·C_D·U_T·H,
 		// equal to K_M as in MacCready 2004; not damped by stratification, see
@@ -360,6 +362,20 @@ func (m *Model) kinematics() {
 		m.g[1][i] = math.Sqrt(e2 / viscosity(m.conc[1][1][i]))
 		m.g[0][i] = math.Sqrt(e1 / viscosity(m.conc[1][0][i]))
 	}
+}
+
+// logLayerDissipation returns the mean dissipation rate (W kg⁻¹) in the
+// upper (h2 < z < H) and lower (z0 < z < h2) layer of a log layer,
+// ε = u*³/(κz) (common practice), given u*³, depth H, lower-layer thickness h2
+// and √C_D. The roughness z0 follows from the depth-mean log law
+// C_D = (κ/(ln(H/z0) − 1))², so ln(h2/z0) = ln(h2/H) + 1 + κ/√C_D; the lower
+// layer's log factor is kept ≥ 1 for layers thinner than e·z0. The
+// thickness-weighted mean is u*³·ln(H/z0)/(κH).
+func logLayerDissipation(us3, h, h2, sqcd float64) (upper, lower float64) {
+	lr := math.Log(h2 / h)
+	lower = us3 * math.Max(lr+1+kappa/sqcd, 1) / (kappa * h2)
+	upper = us3 * (-lr) / (kappa * (h - h2))
+	return upper, lower
 }
 
 // viscosity of water, m² s⁻¹, at temperature tc (°C): Vogel equation
