@@ -83,12 +83,6 @@ func (f Fractal) Aggregate(d, waterDensity float64) (Aggregate, error) {
 	return a, nil
 }
 
-// Primaries returns N = (D/D_p)^n_f for a floc of diameter d (m), without
-// validation; the caller has validated f and d ≥ D_p.
-func (f Fractal) primaries(d float64) float64 {
-	return math.Pow(d/f.PrimaryDiameter, f.Dimension)
-}
-
 // SolidFraction returns φ = (D/D_p)^(n_f−3) for a floc of diameter d (m).
 // Errors as Aggregate for d.
 func (f Fractal) SolidFraction(d float64) (float64, error) {

@@ -407,3 +407,38 @@ func TestRDGSmallAggregateLimit(t *testing.T) {
 		t.Errorf("absorption not additive: %g vs %g", cs.Absorption, n*e.Qabs*area)
 	}
 }
+
+func TestBeyondMieDomain(t *testing.T) {
+	// A 5 mm floc at 400 nm has x ≈ 5e4, beyond mie.MaxSizeParameter: the
+	// effective-medium method gives extinction from anomalous diffraction
+	// only when no backscattering is asked for, and errors otherwise;
+	// Composite still answers (its weight is 1 there, so it needs no
+	// sphere angular quantities). Extinction oscillates about twice the
+	// projected area within the envelope |Q − 2| ≤ 4/ρ + 8/ρ² of van de
+	// Hulst's (1957) formula (|sin|, |1 − cos| ≤ 1, 2).
+	var ws Workspace
+	p := problem(5e-3, 400e-9)
+	if _, err := (EffectiveMedium{}).Evaluate(&ws, p, nil, nil); err == nil {
+		t.Error("effective medium: no error for backscattering beyond the Mie domain")
+	}
+	q := p
+	q.NoBackscatter = true
+	cs, err := EffectiveMedium{}.Evaluate(&ws, q, nil, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	area := math.Pi * 5e-3 * 5e-3 / 4
+	rho := cs.PhaseShift
+	if q := cs.Extinction / area; math.Abs(q-2) > 4/rho+8/(rho*rho) {
+		t.Errorf("Q_ext = %g outside 2 ± %g (ρ = %g)", q, 4/rho+8/(rho*rho), rho)
+	}
+	mu := []float64{0, -1}
+	diff := make([]float64, 2)
+	cc, err := Composite{}.Evaluate(&ws, p, mu, diff)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !(cc.Backscattering > 0 && cc.Backscattering < cc.Scattering && diff[0] > 0 && diff[1] > 0) {
+		t.Errorf("composite beyond the Mie domain: %+v %v", cc, diff)
+	}
+}
