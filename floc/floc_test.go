@@ -540,3 +540,24 @@ func BenchmarkBinNumbers100(b *testing.B) {
 		_ = p.BinNumbers(DefaultFractal, 0.2, edges, dst)
 	}
 }
+
+func TestPublishedExampleTimeIntegration(t *testing.T) {
+	// The FlocData "composite" example of Winterwerp (1998) kinetics
+	// (research note §B2): k_A = 14, k_B = 1400, C = 0.05 kg m⁻³, G = 35 s⁻¹,
+	// D_p = 7 µm, starting from 20 µm and integrated to 1000 min: 91.5 µm.
+	m := DefaultModel
+	m.Fractal = Fractal{PrimaryDiameter: 7e-6, PrimaryDensity: 2650, Dimension: 2}
+	base := DefaultKinetics
+	base.FreshwaterEfficiency = 1
+	m.Kinetics = KineticsFromCoefficients(14, 1400, m.Fractal, waterViscosity(30, 15), base)
+	d := 20e-6
+	for range 1000 {
+		var err error
+		if d, err = m.Step(d, 35, 0.05, 30, 15, 60); err != nil {
+			t.Fatal(err)
+		}
+	}
+	if math.Abs(d/91.5e-6-1) > threeFigures {
+		t.Errorf("D(1000 min) = %.4g µm, want 91.5", d*1e6)
+	}
+}
