@@ -93,4 +93,3 @@ func (mr *MixtureResult) Table() *table.Table {
 	}
 	return t
 }
-

@@ -221,12 +221,6 @@ func buildFloc(po *popOptics, shape psd.Distribution, s spec.Scenario, opt Optio
 		return nil, fmt.Errorf("population %q: %w", p.Name, err)
 	}
 	po.model = m
-	if p.ClassIndex < 0 {
-		if p.Concentration.Basis != spec.ByMass {
-			return nil, fmt.Errorf("population %q: a floc population's own concentration must be by mass (the number and volume of porous flocs depend on their size); got %s", p.Name, p.Concentration.Basis)
-		}
-		po.fixedMass = p.Concentration.Value
-	}
 	// Initial median of the floc MASS distribution (mass ∝ D^n_f).
 	d0, err := psd.MedianDiameter(shape, fr.Dimension, 0.5)
 	if err != nil {
@@ -263,9 +257,48 @@ func buildFloc(po *popOptics, shape psd.Distribution, s spec.Scenario, opt Optio
 		po.dryMass[i] = a.DryMass
 	}
 	po.primMass = fr.PrimaryDensity * math.Pi / 6 * math.Pow(fr.PrimaryDiameter, 3)
+	if p.ClassIndex < 0 {
+		if err := po.setFixedMass(ref.Salinity); err != nil {
+			return nil, err
+		}
+	}
 	return po, nil
 }
 
+// setFixedMass converts the own concentration of a floc population
+// without a sediment class to dry mass, kg m⁻³. By number it counts flocs
+// and loose primaries; by volume it counts the flocs' whole (porous)
+// volume, πD³/6 per floc at the bin's geometric centre, for the size
+// distribution at the initial median and salinity sal.
+func (po *popOptics) setFixedMass(sal float64) error {
+	c := po.spec.Concentration
+	if c.Basis == spec.ByMass || c.Basis == "" {
+		po.fixedMass = c.Value
+		return nil
+	}
+	n := make([]float64, po.table.NBins())
+	if err := po.flocNumbers(n, 1, po.d0, sal); err != nil {
+		return err
+	}
+	per := 0.0 // amount per kg m⁻³ of dry mass
+	e := po.table.Edges
+	for i, v := range n {
+		if c.Basis == spec.ByNumber {
+			per += v
+		} else {
+			d := math.Sqrt(e[i] * e[i+1])
+			if i == 0 {
+				d = po.model.Fractal.PrimaryDiameter
+			}
+			per += v * math.Pi / 6 * d * d * d
+		}
+	}
+	if !(per > 0) {
+		return fmt.Errorf("population %q: cannot convert a %s concentration of flocs to mass", po.spec.Name, c.Basis)
+	}
+	po.fixedMass = c.Value / per
+	return nil
+}
 
 // flocNumbers fills n with the number of flocs per kernel bin (m⁻³) for a
 // floc mass concentration c (kg m⁻³), median diameter d (m) of the floc
