@@ -465,6 +465,22 @@ func (m *Model) boundaries() {
 	}
 }
 
+// conductances sets the dispersion conductance K_H·h_k·B/Δx (m³ s⁻¹) of
+// every face and layer from the present volumes; at the mouth it couples the
+// first cell to the sea, at the head it is zero.
+func (m *Model) conductances() {
+	n := m.n
+	for k := 0; k < Layers; k++ {
+		v, dc := m.vol[k], m.dcoef[k]
+		for j := 1; j < n; j++ {
+			hk := 0.5 * (v[j-1]/m.area[j-1] + v[j]/m.area[j])
+			dc[j] = m.kh[j] * hk * m.bf[j] / m.dx
+		}
+		dc[0] = m.kh[0] * v[0] / m.area[0] * m.bf[0] / m.dx
+		dc[n] = 0
+	}
+}
+
 // stepLimit returns the largest stable step (s) for the current transports.
 func (m *Model) stepLimit() float64 {
 	cfl := m.cfg.Run.Courant
@@ -481,8 +497,7 @@ func (m *Model) stepLimit() float64 {
 			if (k == 1 && m.w[i] > 0) || (k == 0 && m.w[i] < 0) {
 				out += math.Abs(m.w[i])
 			}
-			hk := m.vol[k][i] / m.area[i]
-			out += (m.kh[i] + m.kh[i+1]) * hk * m.b[i] / m.dx
+			out += m.dcoef[k][i] + m.dcoef[k][i+1]
 			if out > 0 {
 				dt = math.Min(dt, cfl*m.vol[k][i]/out)
 			}
@@ -509,6 +524,7 @@ func (m *Model) Step() error {
 		m.nextExchange = m.t + exchangeInterval
 	}
 	m.transports(m.tideRate(m.t))
+	m.conductances()
 	dt := m.stepLimit()
 	next := m.acc.nextEvent(m, end)
 	t1 := m.t + dt
@@ -553,21 +569,17 @@ func (m *Model) Step() error {
 func (m *Model) advect(dt float64) {
 	n := m.n
 	nt := 2 + m.nc
-	// per face and layer: half (1 − Courant number) and dispersion conductance
+	// per face and layer: half (1 − Courant number)
 	for k := 0; k < Layers; k++ {
 		v, q := m.vol[k], m.q[k]
-		hc, dc := m.halfc[k], m.dcoef[k]
+		hc := m.halfc[k]
 		for j := 1; j < n; j++ {
 			vd := v[j]
 			if q[j] > 0 {
 				vd = v[j-1]
 			}
 			hc[j] = 0.5 * (1 - math.Abs(q[j])*dt/vd)
-			hk := 0.5 * (v[j-1]/m.area[j-1] + v[j]/m.area[j])
-			dc[j] = m.kh[j] * hk * m.bf[j] / m.dx
 		}
-		dc[0] = m.kh[0] * v[0] / m.area[0] * m.bf[0] / m.dx
-		dc[n] = 0
 	}
 	for i := 0; i < n; i++ {
 		w := m.w[i]
