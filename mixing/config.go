@@ -97,9 +97,10 @@ type Closure struct {
 	HalineContraction float64 // β, PSU⁻¹, (0, 0.01]
 	InterfaceFriction float64 // c_i, interfacial drag (shear production in the upper layer), –, [0, 0.05]
 	MinLayerFraction  float64 // smallest allowed lower-layer fraction of the depth, –, [0.02, 0.45]
-	// Entrainment adds Turner (1986) entrainment by the residual exchange-flow
-	// shear to the tidal mixing between the layers. Off by default (doc.go).
-	Entrainment bool
+	// Entrainment adds entrainment by the residual exchange-flow shear to the
+	// tidal mixing between the layers. The zero value is off, the default
+	// (doc.go); DefaultTurner gives Turner's (1986) coefficients.
+	Entrainment Turner
 }
 
 // RunControl controls the time integration.
@@ -288,6 +289,12 @@ func (cfg *Config) Validate() error {
 	c.rng("closure.haline_contraction", k.HalineContraction, 0, 0.01, true, false, "1/PSU")
 	c.rng("closure.interface_friction", k.InterfaceFriction, 0, 0.05, false, false, "")
 	c.rng("closure.min_layer_fraction", k.MinLayerFraction, 0.02, 0.45, false, false, "")
+	c.rng("closure.entrainment.a", k.Entrainment.A, 0, 0.2, false, false, "")
+	c.rng("closure.entrainment.b", k.Entrainment.B, 0, 10, false, false, "")
+	c.rng("closure.entrainment.c", k.Entrainment.C, 0, 100, false, false, "")
+	if k.Entrainment.A > 0 && k.Entrainment.B == 0 {
+		c.addf("closure.entrainment.b: 0 with a = %g gives entrainment at any Richardson number; need b in (0, 10]", k.Entrainment.A)
+	}
 	u := cfg.Run
 	c.rng("run.duration", u.Duration, 0, 1e9, true, false, "s")
 	c.rng("run.courant", u.Courant, 0, 0.9, true, false, "")

@@ -76,10 +76,11 @@
 // velocity K_S/(H/2) (DESIGN) with K_S = a·C_D·(π/2)·|u_b(t)|·H + K₀, whose
 // tidal mean equals K_M's tidal part (K_S = K_M as in MacCready 2004), u_b the
 // lower-layer velocity: mixing follows |u(t)| through the tide and vanishes
-// under an arrested wedge. Closure.Entrainment adds interfacial entrainment
-// w_e = E(Ri)·Δu_r by the residual exchange shear, Turner (1986, J. Fluid
-// Mech. 173:431) E = (0.08 − 0.1Ri)/(1 + 5Ri) for Ri < 0.8, with the layer
-// Richardson number Ri = g'·h1·h2/(H·Δu_r²).
+// under an arrested wedge. Closure.Entrainment (e.g. DefaultTurner) adds
+// interfacial entrainment w_e = E(Ri)·Δu_r by the residual exchange shear,
+// E = (A − B·Ri)/(1 + C·Ri), Turner (1986, J. Fluid Mech. 173:431):
+// A = 0.08, B = 0.1, C = 5, zero above Ri = 0.8, with the layer Richardson
+// number Ri = g'·h1·h2/(H·Δu_r²).
 //
 // Transport. Every tracer is advected in each layer by finite volumes with
 // the flux-limited scheme of Sweby (1984, SIAM J. Numer. Anal. 21:995) and the
@@ -131,6 +132,7 @@
 //	β     haline contraction              7.7e-4 PSU⁻¹
 //	c_i   interfacial drag                3e-4     Sørgard, Martinsen & Aas 1990 (1.1e-4 to 4.2e-4)
 //	fmin  smallest lower-layer fraction   0.1      numerical choice
+//	E     entrainment law                 off      Turner 1986 A, B, C = 0.08, 0.1, 5 via DefaultTurner
 //	Erosion rate, critical stresses and bed inventory are per class, no
 //	default: Wadden Sea mudflats give τ_ce = 0.11–0.18 Pa and M = 5e-5 to
 //	3e-3 kg m⁻² s⁻¹; τ_cd ≈ 0.016 Pa (US Army ERDC TN-DOER-E10).

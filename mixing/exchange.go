@@ -134,16 +134,27 @@ func MaximalExchange(qR, h, gp, amin float64) (q, a float64) {
 	return f(a), a
 }
 
-// Entrainment returns the entrainment coefficient E = w_e/|Δu| of a sheared
-// density interface at bulk Richardson number ri (Turner 1986, J. Fluid Mech.
-// 173:431, fit to Ellison & Turner 1959): E = (0.08 − 0.1·Ri)/(1 + 5·Ri) for
-// 0 ≤ Ri < 0.8, 0 above; Ri < 0 (unstable) is treated as 0.
-func Entrainment(ri float64) float64 {
-	if ri >= 0.8 {
+// Turner is an entrainment law E = w_e/|Δu| = (A − B·Ri)/(1 + C·Ri) for a
+// sheared density interface at bulk Richardson number Ri, zero for
+// Ri ≥ A/B. The zero value entrains nothing.
+type Turner struct {
+	A float64 // –, [0, 0.2]
+	B float64 // –, [0, 10]
+	C float64 // –, [0, 100]
+}
+
+// DefaultTurner returns A = 0.08, B = 0.1, C = 5 (Turner 1986, J. Fluid Mech.
+// 173:431, fit to Ellison & Turner 1959 data; E = 0 above Ri = 0.8).
+func DefaultTurner() Turner { return Turner{A: 0.08, B: 0.1, C: 5} }
+
+// Coefficient returns E(ri); Ri < 0 (unstable) is treated as 0.
+func (t Turner) Coefficient(ri float64) float64 {
+	ri = math.Max(ri, 0)
+	e := (t.A - t.B*ri) / (1 + t.C*ri)
+	if !(e > 0) {
 		return 0
 	}
-	ri = math.Max(ri, 0)
-	return (0.08 - 0.1*ri) / (1 + 5*ri)
+	return e
 }
 
 // Knudsen returns the tidally averaged landward (qIn) and seaward (qOut)

@@ -345,18 +345,18 @@ func (m *Model) kinematics() {
 		// Vertical exchange velocity between the layers: tidal mixing
 		// K_S/(H/2) with K_S = a·C_D·(π/2)|u|·H + K₀ (tidal mean a·C_D·U_T·H,
 		// equal to K_M as in MacCready 2004; not damped by stratification, see
-		// doc.go), plus, if Closure.Entrainment, entrainment by the residual
-		// exchange-flow shear Δu_r, w_e = E(Ri)·Δu_r (Turner 1986) with the layer
+		// doc.go), plus, with Closure.Entrainment set, entrainment by the residual
+		// exchange-flow shear Δu_r, w_e = E(Ri)·Δu_r (Turner form) with the layer
 		// Richardson number Ri = g'·h1·h2/(H·Δu_r²).
 		ks := cl.MixingCoefficient*cd*0.5*math.Pi*math.Abs(ub)*htot + cl.BackgroundMixing
 		xv := ks / (0.5 * htot)
 		// residual (exchange-flow) shear between the layers
 		q2 := 0.5 * (m.q2res[i] + m.q2res[i+1])
 		dur := math.Abs((-m.qr-q2)/(m.b[i]*hk[0]) - q2/(m.b[i]*h2))
-		if dur > 0 && cl.Entrainment {
+		if dur > 0 && cl.Entrainment.A > 0 {
 			gp := gravity * beta * math.Max(0, m.conc[0][1][i]-m.conc[0][0][i])
 			ri := gp * hk[0] * h2 / (htot * dur * dur)
-			xv += Entrainment(ri) * dur
+			xv += cl.Entrainment.Coefficient(ri) * dur
 		}
 		m.xv[i] = xv
 		m.g[1][i] = math.Sqrt(e2 / viscosity(m.conc[1][1][i]))

@@ -403,14 +403,14 @@ func TestTidalStraining(t *testing.T) {
 func TestEntrainment(t *testing.T) {
 	const tol = 5e-3 // table rounded to 3 significant figures
 	for _, c := range [][2]float64{{0.05, 0.0600}, {0.1, 0.0467}, {0.3, 0.0200}, {0.5, 0.00857}, {0.8, 0}, {2, 0}} {
-		if e := Entrainment(c[0]); math.Abs(e-c[1]) > tol*c[1]+1e-12 {
+		if e := DefaultTurner().Coefficient(c[0]); math.Abs(e-c[1]) > tol*c[1]+1e-12 {
 			t.Errorf("E(%g) = %.5g, want %.5g", c[0], e, c[1])
 		}
 	}
 	off := channel(1000)
 	off.Run.Duration = 20 * 86400
 	on := off
-	on.Closure.Entrainment = true
+	on.Closure.Entrainment = DefaultTurner()
 	ro, err := Run(off, nil)
 	if err != nil {
 		t.Fatal(err)
