@@ -432,3 +432,37 @@ func TestShearRate(t *testing.T) {
 		}
 	}
 }
+
+// TestSettlingFunc: a stateless SettlingFunc that returns each class's
+// constant gives the same run as ConstantSettling, and it is asked for every
+// class index (identity of the two adapters).
+func TestSettlingFunc(t *testing.T) {
+	cfg := DefaultConfig()
+	cfg.Run.Duration = 86400
+	cfg.Sediment = benchConfig().Sediment
+	ws := ConstantSettling{3e-4, 2e-3}
+	seen := map[int]bool{}
+	f := SettlingFunc(func(class int, c *Local) float64 {
+		seen[class] = true
+		return ws[class]
+	})
+	ra, err := Run(cfg, ws)
+	if err != nil {
+		t.Fatal(err)
+	}
+	rb, err := Run(cfg, f)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(seen) != 2 {
+		t.Errorf("classes asked: %v", seen)
+	}
+	a, b := lastCycle(t, ra), lastCycle(t, rb)
+	for c := range a.BedMass {
+		for i := range a.BedMass[c] {
+			if a.BedMass[c][i] != b.BedMass[c][i] || a.Concentration[1][c][i] != b.Concentration[1][c][i] {
+				t.Fatalf("class %d cell %d differs", c, i)
+			}
+		}
+	}
+}

@@ -64,8 +64,10 @@
 // closure would exceed it, the interface moves to the position of maximal
 // exchange (MaximalExchange). When the river alone makes the upper layer
 // critical, Q_in = 0 and the salt wedge is expelled. With weak tides K_i
-// dominates and an arrested salt wedge results whose length follows
-// Schijf & Schönfeld (1953) within a factor of two (tests).
+// dominates and an arrested salt wedge results; for densimetric Froude
+// numbers F ≤ 0.3 its length is within a factor of two of Schijf & Schönfeld
+// (1953, WedgeLength), nearer F = 1 it is longer than theirs (a few cells),
+// and it vanishes for F ≥ 1.
 //
 // Continuity. Each layer's volume changes by the face transports and by the
 // vertical transport W between the layers; W relaxes the lower layer to the
@@ -106,10 +108,11 @@
 // C_D = (κ/(ln(H/z0) − 1))²), plus c_i·Δu³/h1 from interfacial shear in the
 // upper layer; ν(T) from the Vogel equation (within 2.5 % over 0–40 °C).
 //
-// Journal details given here for Armi & Farmer, Sweby, van Leer, Turner,
-// Phillips, Simpson et al., Partheniades, Krone and the 0.035 dispersion
-// coefficient are from memory; the other constants were read in the sources
-// listed with them.
+// Journal details given here for Hansen & Rattray, Knudsen, Armi & Farmer,
+// Sweby, van Leer, Turner, Munk & Anderson, Phillips, Simpson et al.,
+// Partheniades and Krone, the Vogel constants and the 0.035 dispersion
+// coefficient are from memory; the other formulas and constants were read in
+// the sources collected for the project (research note on estuaries and flocs).
 //
 // # Diagnostics
 //
