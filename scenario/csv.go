@@ -153,6 +153,19 @@ func WriteTable(path string, t *table.Table) error {
 	return safefile.Write(path, func(w io.Writer) error { return t.Write(w, table.CSV) })
 }
 
+type namedTable struct {
+	name string
+	t    *table.Table
+}
+
+func (r *Result) csvTables() []namedTable {
+	return []namedTable{
+		{"section.csv", r.SectionTable()},
+		{"spectra.csv", r.SpectraTable()},
+		{"apparent.csv", r.ApparentTable()},
+	}
+}
+
 // WriteCSV writes the CSV tables of the run into dir (created if needed)
 // and returns the paths written. Every file is written to a temporary file
 // and renamed, so an error leaves no partial file.
@@ -161,14 +174,7 @@ func (r *Result) WriteCSV(dir string) ([]string, error) {
 		return nil, err
 	}
 	var out []string
-	for _, f := range []struct {
-		name string
-		t    *table.Table
-	}{
-		{"section.csv", r.SectionTable()},
-		{"spectra.csv", r.SpectraTable()},
-		{"apparent.csv", r.ApparentTable()},
-	} {
+	for _, f := range r.csvTables() {
 		p := filepath.Join(dir, f.name)
 		if err := WriteTable(p, f.t); err != nil {
 			return out, err

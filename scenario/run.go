@@ -50,14 +50,14 @@ type KernelOptions struct {
 
 // DefaultKernel trades the ripple resolution of the kernels for speed:
 // sub-points every 0.5 in size parameter (two per ripple period instead of
-// five) and exact hemispherical backscattering up to x = 50 (then two
-// jittered strata per bin). Natural populations are broad (Junge or
+// five) and exact hemispherical backscattering up to x = 50 (then four
+// jittered strata per bin, the kernel package's own number). Natural populations are broad (Junge or
 // lognormal with σg ≥ 1.5), so a bulk IOP sums hundreds of ripple periods
 // and the aliasing averages out: the tests bound the change of bulk
 // a, b and b_b against the exact settings (TestDefaultKernelAccuracy);
 // the saving is a factor of three to five in the kernel build, the
 // dominant cost of a run.
-var DefaultKernel = KernelOptions{SubStep: 0.5, BackscatterX: 50, BackscatterSub: 2}
+var DefaultKernel = KernelOptions{SubStep: 0.5, BackscatterX: 50, BackscatterSub: 4}
 
 // DefaultSolarZenith is 30°, a mid-latitude mid-morning sun inside the
 // 0–60° range of the K_d model's simulations (Lee et al. 2005; common

@@ -1,0 +1,278 @@
+package scenario
+
+import (
+	"bytes"
+	"context"
+	"math"
+	"runtime"
+	"testing"
+
+	"github.com/murk-optics/murk/floc"
+	"github.com/murk-optics/murk/mixing"
+	"github.com/murk-optics/murk/scenario/demo"
+	"github.com/murk-optics/murk/scenario/iop"
+	"github.com/murk-optics/murk/scenario/spec"
+	"github.com/murk-optics/murk/scenario/water"
+)
+
+// smallDemo is the demo scenario cut down for tests: 5 wavelengths, 20
+// size bins, 40 cells, a 3-day spin-up and 4 hours of output.
+func smallDemo(t testing.TB) spec.Scenario {
+	t.Helper()
+	s, err := demo.Scenario()
+	if err != nil {
+		t.Fatal(err)
+	}
+	s.Mixture.Optics.Wavelengths = []float64{400e-9, 500e-9, 550e-9, 650e-9, 850e-9}
+	s.Mixture.Optics.SizeBins = 20
+	s.Estuary.Geometry.Cells = 40
+	s.Estuary.Run.SpinUp = 3 * 86400
+	s.Estuary.Run.Duration = 4 * 3600
+	s.Estuary.Run.OutputInterval = 2 * 3600
+	return s
+}
+
+var smallResult *Result
+
+func runSmall(t *testing.T) *Result {
+	t.Helper()
+	if smallResult != nil {
+		return smallResult
+	}
+	r, err := Run(context.Background(), smallDemo(t), Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	smallResult = r
+	return r
+}
+
+// roundOff is the relative tolerance for sums that differ only in the
+// order of floating-point additions (a few ulps of double precision).
+const roundOff = 1e-12
+
+// The separable components add up to the totals, c = a + b and b_b ≤ b
+// (definitions of the IOPs; Mobley 1994, Light and Water, ch. 3).
+func TestComponentsAddUp(t *testing.T) {
+	r := runSmall(t)
+	np := len(r.Times) * len(r.Stations) * mixing.Layers
+	for p := 0; p < np; p++ {
+		for w := range r.Wavelengths {
+			a, b, bb := 0.0, 0.0, 0.0
+			for k := range r.Components {
+				a += r.Value(iop.Absorption, p, k, w)
+				b += r.Value(iop.Scattering, p, k, w)
+				bb += r.Value(iop.Backscattering, p, k, w)
+				if v := r.Value(iop.Backscattering, p, k, w); v > r.Value(iop.Scattering, p, k, w)*(1+roundOff) {
+					t.Fatalf("point %d λ %d component %s: b_b %g > b %g", p, w, r.Components[k].Name, v, r.Value(iop.Scattering, p, k, w))
+				}
+			}
+			if c := r.Sum(iop.Attenuation, p, w, nil); math.Abs(c-(a+b)) > roundOff*(a+b) {
+				t.Fatalf("point %d λ %d: c %g ≠ a + b %g", p, w, c, a+b)
+			}
+			if got := r.Sum(iop.Backscattering, p, w, nil); math.Abs(got-bb) > roundOff*bb {
+				t.Fatalf("point %d λ %d: Σb_b %g ≠ %g", p, w, got, bb)
+			}
+		}
+	}
+}
+
+// The water component is exactly package water's seawater model at the
+// local salinity and temperature (Zhang, Hu & He 2009 scattering, Pope &
+// Fry 1997 absorption), and CDOM at zero salinity is the river end member
+// a_g(λ0)·exp(−S(λ−λ0)) (Bricaud, Morel & Prieur 1981, eq. 1).
+func TestWaterAndCDOM(t *testing.T) {
+	r := runSmall(t)
+	cd := r.Scenario.Mixture.Water.CDOM
+	for _, p := range []int{0, len(r.Salinity) - 1} {
+		for w, lam := range r.Wavelengths {
+			sc, err := water.Scatter(lam, water.Medium{Salinity: r.Salinity[p], TemperatureC: r.Temperature[p]}, 0)
+			if err != nil {
+				t.Fatal(err)
+			}
+			aw, _ := water.Absorption(lam)
+			if got := r.Value(iop.Scattering, p, 0, w); math.Abs(got-sc.B) > roundOff*sc.B {
+				t.Errorf("point %d λ %.0f nm: b_w %g, want %g", p, lam*1e9, got, sc.B)
+			}
+			if got := r.Value(iop.Absorption, p, 0, w); math.Abs(got-aw) > roundOff*aw {
+				t.Errorf("point %d λ %.0f nm: a_w %g, want %g", p, lam*1e9, got, aw)
+			}
+			if r.Salinity[p] == 0 {
+				want := cd.Absorption.River * math.Exp(-cd.Slope*(lam-cd.ReferenceWavelength))
+				if got := r.Value(iop.Absorption, p, 1, w); math.Abs(got-want) > 1e-9*want {
+					t.Errorf("river CDOM at %.0f nm: %g, want %g", lam*1e9, got, want)
+				}
+			}
+		}
+	}
+}
+
+// A class-riding population scales linearly with its class's concentration
+// (single scattering by independent particles: IOPs are proportional to
+// concentration; common practice for dilute suspensions).
+func TestLinearInConcentration(t *testing.T) {
+	r := runSmall(t)
+	k := r.popComponent(0) // silt rides on fine_mud
+	pop := r.Scenario.Mixture.Populations[0]
+	w := refWavelength(r.Wavelengths)
+	var ref float64
+	for p := range r.Salinity {
+		c := r.Concentration[p*r.NC()+pop.ClassIndex] * pop.ClassFraction
+		if c <= 0 {
+			continue
+		}
+		spec := r.Value(iop.Backscattering, p, k, w) / c
+		if ref == 0 {
+			ref = spec
+			continue
+		}
+		if math.Abs(spec-ref) > 1e-12*ref {
+			t.Fatalf("point %d: b_b per mass %g, want %g at every point", p, spec, ref)
+		}
+	}
+}
+
+// Identical results for GOMAXPROCS 1 and 2 (STYLE.md: deterministic
+// parallel work), compared byte for byte on the CSV tables.
+func TestDeterministic(t *testing.T) {
+	s := smallDemo(t)
+	s.Estuary.Run.Duration = 2 * 3600
+	run := func(procs int) []byte {
+		old := runtime.GOMAXPROCS(procs)
+		defer runtime.GOMAXPROCS(old)
+		r, err := Run(context.Background(), s, Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		var b bytes.Buffer
+		for _, tb := range r.csvTables() {
+			if err := tb.t.WriteCSV(&b); err != nil {
+				t.Fatal(err)
+			}
+		}
+		if err := r.WriteSummary(&b); err != nil {
+			t.Fatal(err)
+		}
+		return b.Bytes()
+	}
+	one, two := run(1), run(2)
+	if !bytes.Equal(one, two) {
+		t.Fatalf("outputs differ between GOMAXPROCS 1 and 2 (%d vs %d bytes)", len(one), len(two))
+	}
+}
+
+// wsTableTol bounds the interpolation error of the settling-velocity
+// table against direct calls: w_s varies as D^(n_f−1) (linear in ln–ln)
+// and smoothly in S and T, so bilinear interpolation on 64 diameter nodes
+// is good to well under a per cent; 1 % leaves room at the 0–3 PSU step.
+const wsTableTol = 0.01
+
+// The settling table reproduces floc.Model.MassSettlingVelocity (the
+// slow oracle) between its nodes.
+func TestWSTable(t *testing.T) {
+	m := floc.DefaultModel
+	tab, err := newWSTable(m, 12, 11, 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, d := range []float64{5e-6, 17e-6, 63e-6, 150e-6, 420e-6} {
+		for _, s := range []float64{0, 0.7, 1.8, 2.9, 7, 33} {
+			for _, temp := range []float64{11, 11.4, 12} {
+				want, err := m.MassSettlingVelocity(d, s, temp, 0)
+				if err != nil {
+					t.Fatal(err)
+				}
+				got := tab.at(d, s, temp)
+				if math.Abs(got/want-1) > wsTableTol {
+					t.Errorf("D %g m S %g T %g: table %g m/s, direct %g m/s", d, s, temp, got, want)
+				}
+			}
+		}
+	}
+}
+
+// The rating curve C = A·(Q/Q_ref)^B of the scenario is the model's
+// C = A'·Q^B: both give the same concentration at any discharge.
+func TestRatingCurveConversion(t *testing.T) {
+	s := smallDemo(t)
+	cfg, err := EstuaryConfig(s.Estuary)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for k, sup := range s.Estuary.River.Supply {
+		mc := cfg.Sediment[k]
+		for _, q := range []float64{10, 150, 900} {
+			want := sup.At(q)
+			got := mc.RatingA * math.Pow(q, mc.RatingB)
+			if math.Abs(got-want) > 1e-12*want {
+				t.Errorf("class %s at %g m3/s: model %g kg/m3, scenario %g kg/m3", mc.Name, q, got, want)
+			}
+		}
+	}
+}
+
+func TestOutputTimes(t *testing.T) {
+	for _, c := range []struct {
+		r    spec.Run
+		want []float64
+	}{
+		{spec.Run{SpinUp: 100, Duration: 30, OutputInterval: 10}, []float64{100, 110, 120, 130}},
+		{spec.Run{SpinUp: 0, Duration: 25, OutputInterval: 10}, []float64{0, 10, 20, 25}},
+	} {
+		got := OutputTimes(c.r)
+		if len(got) != len(c.want) {
+			t.Fatalf("%+v: %v, want %v", c.r, got, c.want)
+		}
+		for i := range got {
+			if got[i] != c.want[i] {
+				t.Errorf("%+v: %v, want %v", c.r, got, c.want)
+			}
+		}
+	}
+}
+
+// kernelSpeedTol bounds the change of bulk IOPs between DefaultKernel and
+// the kernel package's fully resolved defaults. 3 % for b_b and 0.5 % for
+// a and b: a tenth of the change that an uncertainty of ±0.01 in a
+// particle's relative index makes to b_b (about 10 % for mineral
+// particles near n = 1.17; from memory), so the faster kernels never
+// decide a result.
+const (
+	kernelSpeedTolBb = 0.03
+	kernelSpeedTol   = 0.005
+)
+
+func TestDefaultKernelAccuracy(t *testing.T) {
+	s := smallDemo(t)
+	s.Mixture.Optics.Wavelengths = []float64{450e-9, 650e-9}
+	ref := referenceWater(s)
+	wref, err := ref.IndexFunc()
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, p := range s.Mixture.Populations[:2] { // silt (Junge) and detritus (lognormal)
+		fast, err := buildPopulation(p, s, Options{Kernel: DefaultKernel}, wref, ref)
+		if err != nil {
+			t.Fatal(err)
+		}
+		exact, err := buildPopulation(p, s, Options{}, wref, ref)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for w := range s.Mixture.Optics.Wavelengths {
+			for _, q := range []struct {
+				name     string
+				got, ref float64
+				tol      float64
+			}{
+				{"a", fast.iop.A[w], exact.iop.A[w], kernelSpeedTol},
+				{"b", fast.iop.B[w], exact.iop.B[w], kernelSpeedTol},
+				{"bb", fast.iop.Bb[w], exact.iop.Bb[w], kernelSpeedTolBb},
+			} {
+				if math.Abs(q.got/q.ref-1) > q.tol {
+					t.Errorf("%s λ %d: %s %g with DefaultKernel, %g exact (tolerance %g)", p.Name, w, q.name, q.got, q.ref, q.tol)
+				}
+			}
+		}
+	}
+}
