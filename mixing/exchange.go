@@ -47,8 +47,8 @@ func (p Profile) Crossing() (zeta float64, ok bool) {
 // landward.
 func (p Profile) Below(zeta float64) float64 {
 	z2 := zeta * zeta
-	f1 := 1.5*zeta - 0.5*z2*zeta + 1     // ∫P1 from −1
-	f2 := zeta - 3*z2*zeta - 2*z2*z2 - 0 // ∫P2 from −1 (∫P2 vanishes at −1)
+	f1 := 1.5*zeta - 0.5*z2*zeta + 1 // ∫P1 from −1
+	f2 := zeta - 3*z2*zeta - 2*z2*z2 // ∫P2 from −1 (the antiderivative vanishes at −1)
 	return p.River*f1 + p.Exchange*f2
 }
 
@@ -58,7 +58,8 @@ func (p Profile) Below(zeta float64) float64 {
 // (interfacial drag law as in Schijf & Schönfeld 1953). With u_E from
 // ExchangeVelocity this gives K_i = c_K·H²·√(c_i·g·β·s_x),
 // c_K = |ū1 − ū2|/(u_E·√(48·P2'(ζ0))) ≈ 0.084 (derived here; see doc.go).
-// It supplies the friction of weakly mixed, salt-wedge-like flow.
+// It supplies the friction of weakly mixed, salt-wedge-like flow. Returns 0
+// for sx ≤ 0 or ci ≤ 0; h > 0 (m), beta > 0 (PSU⁻¹).
 func InterfacialViscosity(sx, h, ci, beta float64) float64 {
 	if !(sx > 0) || !(ci > 0) {
 		return 0
@@ -79,6 +80,8 @@ var interfacialCK = func() float64 {
 // Hansen–Rattray/MacCready (2004) solution, Δs = (K_M/K_S)·48/(g·β·H)·u_E·(U_R/8 + 3u_E/20),
 // from s'(ζ) = (K_M/K_S)(48/(gβH))·u_E·(U_R·P3 + u_E·P4),
 // P3 = −7/120 + ζ²/4 − ζ⁴/8 and P4 = −1/12 + ζ²/2 − (3/4)ζ⁴ − (2/5)ζ⁵.
+// h > 0 (m), kmOverKs > 0, beta > 0 (PSU⁻¹); valid while Δs is small
+// against the mean salinity (the theory is linear in the perturbation).
 func StratificationHR(p Profile, h, kmOverKs, beta float64) float64 {
 	return kmOverKs * 48 / (gravity * beta * h) * p.Exchange * (p.River/8 + 0.15*p.Exchange)
 }

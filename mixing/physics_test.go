@@ -49,9 +49,9 @@ func TestKnudsenReference(t *testing.T) {
 // layer transports and flux-weighted salinities at every section obey
 // Knudsen's relations (steady water and salt balance; MacCready 2011).
 func TestKnudsenModel(t *testing.T) {
-	// The salt content is still settling at the 1e-3 level after 40 days;
-	// 1 % covers that storage term.
-	const tol = 0.01
+	// After 40 days the state repeats from cycle to cycle to ~1e-10
+	// (TestPeriodicState), so salt storage is negligible; 1e-6 leaves margin.
+	const tol = 1e-6
 	cfg := channel(1000)
 	res, err := Run(cfg, nil)
 	if err != nil {
@@ -59,6 +59,7 @@ func TestKnudsenModel(t *testing.T) {
 	}
 	c := lastCycle(t, res)
 	checked := 0
+	worst := 0.0
 	for j := 1; j < len(res.XFace)-1; j++ {
 		qin, qout := c.Transport[1][j], -c.Transport[0][j]
 		if qin <= 0 || c.Salinity[1][min(j, len(res.X)-1)] < 1 {
@@ -70,12 +71,14 @@ func TestKnudsenModel(t *testing.T) {
 		if err != nil {
 			t.Fatalf("face %d: %v", j, err)
 		}
+		worst = math.Max(worst, math.Max(math.Abs(kin-qin)/qin, math.Abs(kout-qout)/qout))
 		if math.Abs(kin-qin) > tol*qin || math.Abs(kout-qout) > tol*qout {
 			t.Errorf("x = %.0f m: model Q_in, Q_out = %.1f, %.1f; Knudsen from s_in = %.3f, s_out = %.3f gives %.1f, %.1f",
 				res.XFace[j], qin, qout, sIn, sOut, kin, kout)
 		}
 		checked++
 	}
+	t.Logf("%d sections, largest relative Knudsen deviation %.2g", checked, worst)
 	if checked < 10 {
 		t.Fatalf("only %d sections carried exchange flow", checked)
 	}
@@ -86,7 +89,7 @@ func TestKnudsenModel(t *testing.T) {
 // DESIGN). Forcing: M2+S2 tide, a varying river, two sediment classes with
 // erosion and deposition.
 func TestBudgets(t *testing.T) {
-	const tol = 1e-11 // relative to the gross content; ~1e4 steps of double round-off
+	const tol = 1e-12 // relative to the gross content; ~1e4 steps of double round-off
 	cfg := DefaultConfig()
 	cfg.Run.Duration = 10 * 86400
 	cfg.River.Series = Series{Time: []float64{0, 2e5, 5e5, 9e5}, Value: []float64{150, 600, 80, 300}, MaxGap: 4e5}
@@ -104,7 +107,9 @@ func TestBudgets(t *testing.T) {
 	v1, in := m.Inventory(), m.Inflow()
 	check := func(name string, a0, a1, flux float64) {
 		scale := math.Max(math.Abs(a0), math.Abs(a1)) + math.Abs(flux)
-		if d := a1 - a0 - flux; math.Abs(d) > tol*scale {
+		d := a1 - a0 - flux
+		t.Logf("%s: residual %.2g relative", name, d/scale)
+		if math.Abs(d) > tol*scale {
 			t.Errorf("%s: change %.6g, net inflow %.6g, residual %.3g (%.2g relative)", name, a1-a0, flux, d, d/scale)
 		}
 	}
