@@ -251,6 +251,11 @@ func TestValidate(t *testing.T) {
 	if _, err := New(cfg, nil); err == nil {
 		t.Error("sediment without a settling model accepted")
 	}
+	cfg = DefaultConfig()
+	cfg.Geometry.Depth = 2
+	if _, err := New(cfg, nil); err == nil || !strings.Contains(err.Error(), "tide: spring elevation amplitude 2 m") {
+		t.Errorf("tide deeper than the channel: %v", err)
+	}
 }
 
 // negativeSettling returns a bad velocity for class 0 in cell 3.

@@ -105,6 +105,14 @@ func New(cfg Config, settling Settling) (*Model, error) {
 	if cfg.Tide.S2Velocity > 0 {
 		m.a2 = cfg.Tide.S2Velocity * conv / omegaS2
 	}
+	hmin := math.Inf(1)
+	for _, h := range m.h {
+		hmin = math.Min(hmin, h)
+	}
+	if m.a1+m.a2 > 0.9*hmin {
+		return nil, fmt.Errorf("mixing: tide: spring elevation amplitude %g m (M2 %g m + S2 %g m) is outside [0, %g] m, 0.9 of the smallest depth %g m",
+			m.a1+m.a2, m.a1, m.a2, 0.9*hmin, hmin)
+	}
 	nt := 2 + m.nc
 	m.conc = make([][Layers][]float64, nt)
 	for t := range m.conc {
