@@ -211,22 +211,12 @@ func buildFloc(po *popOptics, shape psd.Distribution, s spec.Scenario, opt Optio
 	p := po.spec
 	po.isFloc = true
 	po.dynamic = p.Floc.Dynamic
-	fr := floc.Fractal{PrimaryDiameter: p.Floc.PrimarySize, PrimaryDensity: p.Density, Dimension: p.Floc.FractalDimension}
-	m := floc.DefaultModel
-	m.Fractal = fr
-	if p.Size.Kind == spec.SizeLognormal {
-		m.Spread.LogWidth = math.Log(p.Size.GSD)
-	}
-	if err := m.Validate(); err != nil {
-		return nil, fmt.Errorf("population %q: %w", p.Name, err)
-	}
-	po.model = m
-	// Initial median of the floc MASS distribution (mass ∝ D^n_f).
-	d0, err := psd.MedianDiameter(shape, fr.Dimension, 0.5)
+	m, d0, err := flocModel(p, shape)
 	if err != nil {
-		return nil, fmt.Errorf("population %q: %w", p.Name, err)
+		return nil, err
 	}
-	po.d0 = max(d0, fr.PrimaryDiameter)
+	po.model, po.d0 = m, d0
+	fr := m.Fractal
 
 	var method optics.Method = optics.Composite{}
 	if p.Floc.Optics == spec.FlocRDG {
@@ -263,6 +253,28 @@ func buildFloc(po *popOptics, shape psd.Distribution, s spec.Scenario, opt Optio
 		}
 	}
 	return po, nil
+}
+
+// flocModel returns the floc model of a floc population (package floc's
+// defaults with the population's primary size, primary density and
+// fractal dimension, and for a lognormal size distribution its width) and
+// the initial median diameter of the floc mass (mass ∝ D^n_f) of its size
+// distribution shape.
+func flocModel(p spec.Population, shape psd.Distribution) (floc.Model, float64, error) {
+	fr := floc.Fractal{PrimaryDiameter: p.Floc.PrimarySize, PrimaryDensity: p.Density, Dimension: p.Floc.FractalDimension}
+	m := floc.DefaultModel
+	m.Fractal = fr
+	if p.Size.Kind == spec.SizeLognormal {
+		m.Spread.LogWidth = math.Log(p.Size.GSD)
+	}
+	if err := m.Validate(); err != nil {
+		return floc.Model{}, 0, fmt.Errorf("population %q: %w", p.Name, err)
+	}
+	d0, err := psd.MedianDiameter(shape, fr.Dimension, 0.5)
+	if err != nil {
+		return floc.Model{}, 0, fmt.Errorf("population %q: %w", p.Name, err)
+	}
+	return m, max(d0, fr.PrimaryDiameter), nil
 }
 
 // setFixedMass converts the own concentration of a floc population

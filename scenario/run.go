@@ -182,32 +182,51 @@ func Run(ctx context.Context, s spec.Scenario, opt Options) (*Result, error) {
 		return nil, err
 	}
 
-	// 1. Kernels, once per population (independent of the estuary run).
-	progress("building optical kernels for %d populations", len(s.Mixture.Populations))
-	pops, err := buildPopulations(ctx, s, opt, referenceWater(s), progress)
+	// 1. The estuary, with floc settling, runs in its own goroutine while
+	// 2. the kernels are built, once per population: the two are
+	// independent until the IOPs are evaluated.
+	set, err := newSettling(s, cfg, opt.FlocInterval)
 	if err != nil {
 		return nil, err
 	}
-
-	// 2. The estuary, with floc settling.
-	set, err := newSettling(s, cfg, pops, opt.FlocInterval)
-	if err != nil {
-		return nil, err
-	}
-	if err := ctx.Err(); err != nil {
-		return nil, err
-	}
-	progress("running the estuary model: %d cells, %.1f days", cfg.Geometry.Cells, cfg.Run.Duration/86400)
+	progress("running the estuary model: %d cells, %.1f days; building optical kernels for %d populations",
+		cfg.Geometry.Cells, cfg.Run.Duration/86400, len(s.Mixture.Populations))
 	var ms mixing.Settling
 	if len(cfg.Sediment) > 0 {
 		ms = set
 	}
-	est, err := mixing.Run(cfg, ms)
+	var (
+		est    *mixing.Result
+		estErr error
+		done   = make(chan struct{})
+	)
+	go func() {
+		defer close(done)
+		est, estErr = mixing.Run(cfg, ms)
+	}()
+	pops, err := buildPopulations(ctx, s, opt, referenceWater(s), progress)
+	<-done
 	if err != nil {
 		return nil, err
 	}
+	if estErr != nil {
+		return nil, estErr
+	}
+	progress("estuary model done: %d steps", est.Steps)
 	if len(est.Snapshots) != len(cfg.Run.Output) {
 		return nil, fmt.Errorf("scenario: estuary model returned %d snapshots for %d output times", len(est.Snapshots), len(cfg.Run.Output))
+	}
+	for _, po := range pops {
+		if po.isFloc {
+			for f, fc := range set.flocs {
+				if fc.class == po.spec.ClassIndex {
+					po.flocIdx = f
+				}
+			}
+		}
+	}
+	if err := ctx.Err(); err != nil {
+		return nil, err
 	}
 
 	// 3. IOPs at every station, layer and time: cheap weighted sums.
@@ -264,8 +283,10 @@ func (opt Options) normalise() (Options, error) {
 	return opt, nil
 }
 
-// newSettling builds the coupling of the estuary to the flocs.
-func newSettling(s spec.Scenario, cfg mixing.Config, pops []*popOptics, interval float64) (*settling, error) {
+// newSettling builds the coupling of the estuary to the flocs: each class
+// that settles as flocs takes the model of the first floc population
+// riding on it.
+func newSettling(s spec.Scenario, cfg mixing.Config, interval float64) (*settling, error) {
 	e := s.Estuary
 	set := &settling{nc: len(e.Classes), interval: interval, outputs: cfg.Run.Output}
 	set.constant = make([]float64, len(e.Classes))
@@ -275,22 +296,29 @@ func newSettling(s spec.Scenario, cfg mixing.Config, pops []*popOptics, interval
 			continue
 		}
 		set.constant[k] = math.NaN()
-		var po *popOptics
-		for _, p := range pops {
-			if p.isFloc && p.spec.ClassIndex == k {
-				po = p
+		var pop *spec.Population
+		for i := range s.Mixture.Populations {
+			if p := &s.Mixture.Populations[i]; p.Kind == spec.KindFloc && p.ClassIndex == k {
+				pop = p
 				break
 			}
 		}
-		if po == nil {
+		if pop == nil {
 			return nil, fmt.Errorf("scenario: sediment class %q settles as flocs but no floc population rides on it", c.Name)
 		}
-		tab, err := newWSTable(po.model, e.River.Temperature, e.Ocean.Temperature, 0)
+		shape, _, _, err := sizeShape(pop.Size)
+		if err != nil {
+			return nil, fmt.Errorf("population %q: %w", pop.Name, err)
+		}
+		m, d0, err := flocModel(*pop, shape)
+		if err != nil {
+			return nil, err
+		}
+		tab, err := newWSTable(m, e.River.Temperature, e.Ocean.Temperature, 0)
 		if err != nil {
 			return nil, fmt.Errorf("scenario: class %q: %w", c.Name, err)
 		}
-		po.flocIdx = len(set.flocs)
-		set.flocs = append(set.flocs, flocClass{class: k, model: po.model, dynamic: po.dynamic, d0: po.d0, table: tab})
+		set.flocs = append(set.flocs, flocClass{class: k, model: m, dynamic: pop.Floc.Dynamic, d0: d0, table: tab})
 	}
 	return set, nil
 }

@@ -11,11 +11,12 @@ import (
 
 // DefaultFlocInterval is the longest time, s, between updates of the floc
 // sizes (Options.FlocInterval). Floc size relaxes towards equilibrium over
-// tens of minutes to hours in estuarine mud (Winterwerp 1998, J. Hydraul.
-// Res. 36:309, his Fig. 7 shows lags of about an hour), so updating every
-// 20 minutes resolves the tide (37 updates per M2 period) at a fraction of
-// the cost of updating every model step.
-const DefaultFlocInterval = 1200.0
+// tens of minutes to hours in estuarine mud (the relaxation time
+// 1/(k_A·C·G·D^(3−n_f)) of Winterwerp 1998, J. Hydraul. Res. 36:309, is of
+// order an hour at C = 0.1 kg m⁻³ and G = 2 s⁻¹), so updating every half
+// hour resolves the tide (25 updates per M2 period) at a fraction of the
+// cost of updating every model step.
+const DefaultFlocInterval = 1800.0
 
 // flocClass is one sediment class whose settling velocity comes from the
 // floc population riding on it.
