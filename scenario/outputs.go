@@ -17,6 +17,13 @@ func (r *Result) WriteOutputs(dir string) ([]string, error) {
 			return out, err
 		}
 	}
+	if o.NetCDF {
+		p, err := r.writeNetCDFInto(dir)
+		if err != nil {
+			return out, err
+		}
+		out = append(out, p)
+	}
 	if o.Summary {
 		p, err := r.WriteSummaryFile(dir)
 		if err != nil {
