@@ -89,3 +89,18 @@ func TestNetCDFReadBack(t *testing.T) {
 		}
 	}
 }
+
+// Every figure passes the plot package's checks and is drawn in both
+// formats (gonum/plot renders it; the plot package's own tests compare
+// figures with golden output).
+func TestFigures(t *testing.T) {
+	r := runSmall(t)
+	paths, err := r.WritePlots(t.TempDir())
+	if err != nil {
+		t.Fatal(err)
+	}
+	// 6 sections + 3 spectra + 3 envelopes, each in SVG and PNG.
+	if len(paths) != 24 {
+		t.Errorf("%d figure files, want 24: %v", len(paths), paths)
+	}
+}

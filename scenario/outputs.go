@@ -1,8 +1,9 @@
 package scenario
 
 // WriteOutputs writes the products the scenario asks for (Outputs: CSV
-// tables, the summary; NetCDF and figures where available) into dir and
-// returns the paths written, in a fixed order. A scenario that lists no
+// tables, NetCDF, figures, the summary) into dir and
+// returns the paths written, in a fixed order (CSV, NetCDF, figures,
+// summary). A scenario that lists no
 // product gets CSV tables and the summary.
 func (r *Result) WriteOutputs(dir string) ([]string, error) {
 	o := r.Scenario.Outputs
@@ -23,6 +24,13 @@ func (r *Result) WriteOutputs(dir string) ([]string, error) {
 			return out, err
 		}
 		out = append(out, p)
+	}
+	if o.Plots {
+		p, err := r.WritePlots(dir)
+		out = append(out, p...)
+		if err != nil {
+			return out, err
+		}
 	}
 	if o.Summary {
 		p, err := r.WriteSummaryFile(dir)

@@ -118,6 +118,8 @@ type Result struct {
 	ForelUle  []int     // 1–21, 0 undefined
 	SeenFlags []seen.Flag
 
+	SolarZenith float64 // rad, the sun of the apparent properties
+
 	Summary Summary
 }
 
@@ -231,6 +233,7 @@ func Run(ctx context.Context, s spec.Scenario, opt Options) (*Result, error) {
 
 	// 3. IOPs at every station, layer and time: cheap weighted sums.
 	r := newResult(s, cfg, est, pops)
+	r.SolarZenith = opt.SolarZenith
 	progress("evaluating IOPs at %d stations × %d layers × %d times", len(r.Stations), mixing.Layers, len(r.Times))
 	if err := r.evaluate(ctx, set, pops, opt); err != nil {
 		return nil, err

@@ -4,6 +4,8 @@ import (
 	"bytes"
 	"context"
 	"math"
+	"os"
+	"path/filepath"
 	"runtime"
 	"testing"
 
@@ -133,7 +135,8 @@ func TestLinearInConcentration(t *testing.T) {
 }
 
 // Identical results for GOMAXPROCS 1 and 2 (STYLE.md: deterministic
-// parallel work), compared byte for byte on the CSV tables.
+// parallel work), compared byte for byte on the CSV tables, the summary
+// and the NetCDF file.
 func TestDeterministic(t *testing.T) {
 	s := smallDemo(t)
 	s.Estuary.Run.Duration = 2 * 3600
@@ -153,6 +156,15 @@ func TestDeterministic(t *testing.T) {
 		if err := r.WriteSummary(&b); err != nil {
 			t.Fatal(err)
 		}
+		nc := filepath.Join(t.TempDir(), "run.nc")
+		if err := r.WriteNetCDF(nc); err != nil {
+			t.Fatal(err)
+		}
+		data, err := os.ReadFile(nc)
+		if err != nil {
+			t.Fatal(err)
+		}
+		b.Write(data)
 		return b.Bytes()
 	}
 	one, two := run(1), run(2)

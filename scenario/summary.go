@@ -13,10 +13,9 @@ import (
 
 // Caution is printed with every summary.
 const Caution = `Cautions: these predictions are estimates for planning and for understanding the
-optics of the estuary; they are not a substitute for calibrated measurement. The
-turbidity readings are formazin-like ratios under stated assumptions, not
-certified FNU. Turbidity limits and plume compliance are set by local
-regulations and licensed practice, not by this model.`
+optics of the estuary; they are not a substitute for calibrated measurement.
+Turbidity limits and plume compliance are set by local regulations and
+licensed practice, not by this model.`
 
 // StationSummary holds tidal means (over the output times) at one station.
 // Optical values are of the upper layer at the reference wavelength; the
@@ -35,6 +34,8 @@ type StationSummary struct {
 	DominantShare   float64 // its share, 1
 	MineralShare    float64 // share of b_bp from mineral particles and mineral flocs, 1
 	Secchi          float64 // m
+	ForelUle        int     // most frequent Forel-Ule class over the outputs (0: undefined)
+	Kd              float64 // K_d at the reference wavelength, m⁻¹
 }
 
 // Summary is the digest of a run that the text summary prints.
@@ -137,6 +138,7 @@ func summarise(r *Result) Summary {
 	for j := range r.Stations {
 		st := StationSummary{Distance: r.Stations[j]}
 		share := make([]float64, r.NK())
+		fuCount := make([]int, 22)
 		var bbpSum float64
 		for t := 0; t < nt; t++ {
 			p0, p1 := r.Point(t, j, 0), r.Point(t, j, 1)
@@ -159,6 +161,10 @@ func summarise(r *Result) Summary {
 			st.BbSlope += r.ParticleBbSlope[p0] * f
 			st.Attenuation += r.Sum(iop.Attenuation, p0, wref, nil) * f
 			st.Secchi += r.Secchi[q] * f
+			st.Kd += r.Kd[q*r.NW()+wref] * f
+			if fu := r.ForelUle[q]; fu >= 0 && fu < len(fuCount) {
+				fuCount[fu]++
+			}
 			if firstFloc >= 0 {
 				st.FlocDiameter += math.Log(r.FlocDiameter[p0*np+firstFloc]) * f
 			}
@@ -172,6 +178,11 @@ func summarise(r *Result) Summary {
 		}
 		if firstFloc >= 0 {
 			st.FlocDiameter = math.Exp(st.FlocDiameter)
+		}
+		for fu := 1; fu < len(fuCount); fu++ {
+			if fuCount[fu] > fuCount[st.ForelUle] {
+				st.ForelUle = fu
+			}
 		}
 		if bbpSum > 0 {
 			for k, c := range r.Components {
@@ -248,8 +259,9 @@ func (r *Result) WriteSummary(w io.Writer) error {
 		b.WriteString("\n")
 	}
 
-	fmt.Fprintf(&b, "Along the channel, river to sea (tidal means, upper layer, λ = %.0f nm; c is total attenuation):\n", s.ReferenceWavelength*1e9)
-	fmt.Fprintf(&b, "  %7s %6s %6s %9s %9s %7s %7s %7s %6s %7s  %s\n", "km", "S", "S_bed", "SSC g/m3", "b_bp 1/m", "γ_bbp", "bbp/bp", "c 1/m", "floc", "Secchi", "main backscatterer")
+	fmt.Fprintf(&b, "Along the channel, river to sea (tidal means, upper layer, λ = %.0f nm; c total attenuation; Kd, Secchi depth\n", s.ReferenceWavelength*1e9)
+	fmt.Fprintf(&b, "and Forel-Ule colour class FU for the upper layer seen from above, sun %.0f° from the zenith):\n", r.SolarZenith*180/math.Pi)
+	fmt.Fprintf(&b, "  %6s %5s %5s %8s %8s %5s %6s %6s %6s %6s %6s %3s  %s\n", "km", "S", "S_bed", "SSC g/m3", "b_bp 1/m", "γ_bbp", "bbp/bp", "c 1/m", "Kd 1/m", "floc", "Secchi", "FU", "main backscatterer")
 	order := make([]int, len(s.Stations))
 	for i := range order {
 		order[i] = i
@@ -266,9 +278,13 @@ func (r *Result) WriteSummary(w io.Writer) error {
 		if st.FlocDiameter > 0 {
 			floc = fmt.Sprintf("%.0fµm", st.FlocDiameter*1e6)
 		}
-		fmt.Fprintf(&b, "  %7.1f %6.1f %6.1f %9.3g %9.3g %7.2f %7.4f %7.3g %6s %6.2fm  %s (%.0f %%)\n",
+		fu := "–"
+		if st.ForelUle > 0 {
+			fu = fmt.Sprint(st.ForelUle)
+		}
+		fmt.Fprintf(&b, "  %6.1f %5.1f %5.1f %8.3g %8.3g %5.2f %6.4f %6.3g %6.3g %6s %5.2fm %3s  %s (%.0f %%)\n",
 			st.Distance/1e3, st.Salinity, st.BottomSalinity, st.Concentration*1e3, st.ParticleBb, st.BbSlope,
-			st.ParticleBbRatio, st.Attenuation, floc, st.Secchi, st.Dominant, 100*st.DominantShare)
+			st.ParticleBbRatio, st.Attenuation, st.Kd, floc, st.Secchi, fu, st.Dominant, 100*st.DominantShare)
 	}
 	b.WriteString("\n")
 	b.WriteString(r.interpretation())
@@ -281,6 +297,11 @@ func (r *Result) WriteSummary(w io.Writer) error {
 	_, err := io.WriteString(w, b.String())
 	return err
 }
+
+// slopeChange is the least change of γ_bbp the summary calls a change:
+// 0.1 is about the scatter of γ_bbp fitted to field spectra of similar
+// waters (common practice; fits over 400–900 nm are steadier than that).
+const slopeChange = 0.1
 
 // interpretation turns the station table into sentences: each states a
 // computed direction of change and the physical reason the model holds for
@@ -315,9 +336,12 @@ func (r *Result) interpretation() string {
 	fmt.Fprintf(&b, "- Backscattering b_bp goes from %.3g 1/m at the river end (%.0f km) to %.3g 1/m at the mouth, with its largest value %.3g 1/m at %.0f km.\n",
 		head.ParticleBb, head.Distance/1e3, mouth.ParticleBb, peak.ParticleBb, peak.Distance/1e3)
 	fmt.Fprintf(&b, "- Its spectral slope γ goes from %.2f (river) through %.2f (turbidity maximum) to %.2f (sea).", head.BbSlope, etm.BbSlope, mouth.BbSlope)
-	if etm.BbSlope < head.BbSlope {
+	switch d := etm.BbSlope - head.BbSlope; {
+	case math.Abs(d) < slopeChange:
+		b.WriteString(" It hardly changes: the particles that dominate b_bp keep their size distribution along the channel.\n")
+	case d < 0:
 		b.WriteString(" A flatter spectrum (smaller γ) means larger particles: flocs formed at the salt front.\n")
-	} else {
+	default:
 		b.WriteString(" A steeper spectrum (larger γ) means relatively more small particles.\n")
 	}
 	fmt.Fprintf(&b, "- The backscattering ratio b_bp/b_p goes from %.4f (river) through %.4f (turbidity maximum) to %.4f (sea); mineral particles and mineral flocs give %.0f %%, %.0f %% and %.0f %% of b_bp there.\n",
