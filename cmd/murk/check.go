@@ -5,6 +5,7 @@ import (
 	"flag"
 	"fmt"
 	"io"
+	"strings"
 
 	"github.com/murk-optics/murk/scenario"
 	"github.com/murk-optics/murk/scenario/spec"
@@ -51,6 +52,10 @@ func runCheck(args []string, stdout, stderr io.Writer) int {
 		return exitInvalid
 	}
 	fmt.Fprintf(stdout, "%s: valid\n", pos[0])
-	fmt.Fprint(stdout, spec.Estimate(s).String())
+	est := spec.Estimate(s).String()
+	fmt.Fprint(stdout, est)
+	if !strings.HasSuffix(est, "\n") {
+		fmt.Fprintln(stdout)
+	}
 	return exitOK
 }
