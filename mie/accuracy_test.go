@@ -10,12 +10,16 @@ import (
 // (oracle_test.go). The bounds are what the engine achieves over the seeded
 // sample plus a margin of about 3×; they are stated in doc.go.
 const (
-	tolQ     = 2e-12 // Qext, Qsca: relative (worst seen 4.4e-13)
-	tolAbs   = 5e-14 // Qabs: relative to Qext, since Qabs = Qext − Qsca inherits Qext's absolute error (worst seen 8.6e-15)
-	tolG     = 3e-13 // g: absolute (worst seen 6.5e-14)
-	tolBack  = 3e-10 // Qback: relative; the 180° sum converges last and alternates in sign (worst seen 5.6e-11)
-	tolHemi  = 2e-12 // Qbb: relative (worst seen 3.4e-13)
-	oracleXs = 24    // random cases per run
+	tolQ    = 2e-12 // Qext, Qsca: relative (worst seen 4.4e-13)
+	tolAbs  = 5e-14 // Qabs: relative to Qext, since Qabs = Qext − Qsca inherits Qext's absolute error (worst seen 8.6e-15)
+	tolG    = 3e-13 // g: absolute (worst seen 6.5e-14)
+	tolBack = 3e-10 // Qback: relative; the 180° sum converges last and alternates in sign (worst seen 5.6e-11)
+	tolHemi = 2e-12 // Qbb: relative, plus tolHemiA below (worst seen 1.1e-12 where Qbb/Qsca ≥ 1e-4)
+	// tolHemiA bounds the absolute Qbb error in units of Qsca: the
+	// closed-form overlaps cancel when little light goes backwards (worst
+	// seen 1.3e-15·Qsca, at Qbb/Qsca = 3.9e-6 for m = 1.001, x = 200).
+	tolHemiA = 5e-15
+	oracleXs = 24 // random cases per run
 )
 
 type accCase struct {
@@ -70,13 +74,17 @@ func TestAgainstOracle(t *testing.T) {
 			"g":     math.Abs(e.G - o.g),
 			"Qback": relErr(e.Qback, o.qback),
 		}
-		if c.x <= 3000 { // the oracle's quadrature is O(N²) in float64 too
-			errs["Qbb"] = relErr(s.BackHemisphere(), oracleBack(c.x, o))
+		if c.x <= 3000 { // the oracle's quadrature is O(N²)
+			qbb, want := s.BackHemisphere(), oracleBack(c.x, o)
+			errs["Qbb"] = relErr(qbb, want)
+			if math.Abs(qbb-want) > tolHemi*want+tolHemiA*o.qsca {
+				t.Errorf("x=%.6g m=%v: Qbb %.17g, quadrature %.17g", c.x, c.m, qbb, want)
+			}
 		}
-		tol := map[string]float64{"Qext": tolQ, "Qsca": tolQ, "Qabs": tolAbs, "g": tolG, "Qback": tolBack, "Qbb": tolHemi}
+		tol := map[string]float64{"Qext": tolQ, "Qsca": tolQ, "Qabs": tolAbs, "g": tolG, "Qback": tolBack}
 		for q, v := range errs {
 			worst[q] = math.Max(worst[q], v)
-			if v > tol[q] {
+			if tq, ok := tol[q]; ok && v > tq {
 				t.Errorf("x=%.6g m=%v: %s error %.2e > %.0e", c.x, c.m, q, v, tol[q])
 			}
 		}

@@ -1,6 +1,7 @@
 package mie
 
 import (
+	"fmt"
 	"math"
 	"testing"
 )
@@ -90,4 +91,27 @@ func formatX(x float64) string {
 		return "1e3"
 	}
 	return "1e4"
+}
+
+// BenchmarkBackCrossover times both evaluations near the switch-over size.
+func BenchmarkBackCrossover(b *testing.B) {
+	for _, x := range []float64{50, 150, 250, 400} {
+		var s Solver
+		s.Sphere(x, 1.2+0.001i)
+		c := constsFor(s.n + 2)
+		b.Run(fmt.Sprintf("direct/N=%d", s.n), func(b *testing.B) {
+			for b.Loop() {
+				s.backDirect(c)
+			}
+		})
+		b.Run(fmt.Sprintf("fft/N=%d", s.n), func(b *testing.B) {
+			l := fftLength(3*s.n + 2)
+			plan, spec := planFor(l), hilbertSpectrum(l)
+			s.buf = grow(s.buf, l)
+			for b.Loop() {
+				s.family(c.uu, c.wu, c.du, +1, plan, spec)
+				s.family(c.uv, c.wv, c.dv, -1, plan, spec)
+			}
+		})
+	}
 }

@@ -33,10 +33,15 @@
 //     recursive form of Yang (2003, Appl. Opt. 42:1710), which uses only
 //     bounded ratios and is stable for absorbing shells (the instability of
 //     BHCOAT is discussed by Toon & Ackerman 1981, Appl. Opt. 20:3657).
-//   - Hemispherical backscattering: exact Gauss–Legendre quadrature of
-//     |S1|²+|S2|² over [−1, 0] with N+1 nodes (the integrand is a polynomial
-//     of degree 2N in cos θ), nodes by Bogaert (2014, SIAM J. Sci. Comput.
-//     36:A1008) computed once per node count; see Solver.BackHemisphere.
+//   - Hemispherical backscattering: exact in O(N log N). The back-hemisphere
+//     integral of |S1 ± S2|² is a double sum over half-range overlaps of the
+//     functions π_n ± τ_n, which are multiples of Wigner d-functions and so
+//     satisfy a Sturm–Liouville equation; Green's identity gives every
+//     overlap in closed form from values at 90°, and the double sum becomes
+//     one Hilbert-kernel convolution evaluated by FFT (below N = 200 terms,
+//     a direct sum is cheaper). See backscatter.go for the derivation and
+//     sources. Gauss–Legendre quadrature with N+1 nodes, the textbook exact
+//     method, costs O(N²) and is kept in the tests as the reference.
 //
 // Two textbook choices were changed after comparing with the
 // extended-precision oracle kept in the tests (256-bit arithmetic, 40 extra
@@ -59,8 +64,11 @@
 // to 0.001, |m|x up to 4·10⁴), the worst errors measured are (relative unless
 // stated): Qext and Qsca 4e−13; Qabs 9e−15 of Qext (absolute error in units
 // of Qext: Qabs is a difference, so its relative error grows as absorption
-// vanishes); g 7e−14 absolute; Qback 6e−11; Qbb 3e−13 (for x ≤ 3000). The
-// tests assert bounds about 3× larger. Published tables (Bohren & Huffman
+// vanishes); g 7e−14 absolute; Qback 6e−11; Qbb 1e−12 relative where at
+// least 1e−4 of the scattered light goes backwards, and 1.3e−15·Qsca
+// absolute otherwise (the closed-form overlaps cancel when Qbb ≪ Qsca;
+// compared with quadrature for x ≤ 3000). The tests assert bounds about 3×
+// larger. Published tables (Bohren & Huffman
 // 1983 Appendices A and B; Wiscombe 1979 tables and MIEV0 test cases) are
 // reproduced to every printed digit.
 //
@@ -75,7 +83,10 @@
 // # Performance
 //
 // A Solver is a workspace: reuse one per goroutine and it allocates nothing.
-// Efficiencies cost O(N) with N ≈ x terms (tens of ns per term); the
-// hemispherical backscattering integral costs O(N²) and dominates above
-// x ≈ 100. Benchmarks are in bench_test.go.
+// Efficiencies cost O(N) with N ≈ x terms (about 50 ns per term, faster
+// than the same algorithm in plain C with C99 complex division, see
+// testdata/csweep.c). The hemispherical backscattering costs O(N log N):
+// measured 34 µs, 0.4 ms and 5.9 ms at x = 1e2, 1e3, 1e4 against 0.13 ms,
+// 8.9 ms and 640 ms for exact Gauss–Legendre quadrature (3.8×, 23× and 109×
+// faster). Benchmarks are in bench_test.go.
 package mie

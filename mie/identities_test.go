@@ -42,12 +42,11 @@ func TestHemispheresAddUp(t *testing.T) {
 		}
 		back := s.BackHemisphere()
 		nn := e.Terms + 8
-		mu, w := make([]float64, nn), make([]float64, nn)
-		legendreNodes(mu, w)
+		mu, w := legendreNodes(make([]float64, nn), make([]float64, nn))
 		for i := range mu {
 			mu[i] = -mu[i] // forward hemisphere [0, 1]
 		}
-		p := make([]float64, nn)
+		p := make([]float64, len(mu))
 		s.PhaseFunction(mu, p)
 		var fwd float64
 		for i := range p {

@@ -58,7 +58,7 @@ type Solver struct {
 	hb    []complex128 // H^b_n for the coated sphere, index n
 	dc    []complex128 // scratch: D_n(m1·x1) for the coated sphere
 	d2    []complex128 // scratch: D_n(m2·x1) for the coated sphere
-	terms []backTerm   // per-term constants of the back-hemisphere sum
+	buf   []complex128 // workspace of BackHemisphere
 	valid bool
 }
 
