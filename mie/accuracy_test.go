@@ -91,3 +91,48 @@ func TestAgainstOracle(t *testing.T) {
 	}
 	t.Logf("worst errors against the oracle: %v", worst)
 }
+
+// The per-degree diagonal overlaps ∫_{−1}^{0} u_n² come from a recurrence;
+// compare them with quadrature at degrees up to 4000, and the whole Qbb with
+// quadrature on the engine's own coefficients at large x, where the oracle
+// comparison above does not reach.
+func TestBackHemisphereLarge(t *testing.T) {
+	c := constsFor(4100)
+	for _, n := range []int{1, 2, 3, 10, 57, 300, 1001, 4000} {
+		nn := n + 4
+		mu, w := legendreNodes(make([]float64, nn), make([]float64, nn))
+		var du float64
+		for i := range mu {
+			// π_n + τ_n at mu[i] by the angular recurrence.
+			pi0, pi1 := 0.0, 1.0
+			var u float64
+			for k := 1; k <= n; k++ {
+				fk := float64(k)
+				if k == n {
+					u = pi1 + fk*mu[i]*pi1 - (fk+1)*pi0
+				}
+				pi0, pi1 = pi1, ((2*fk+1)*mu[i]*pi1-(fk+1)*pi0)/fk
+			}
+			du += w[i] * u * u
+		}
+		// Relative: both are sums of ~n rounded terms of one sign.
+		if r := relErr(c.du[n], du); r > 1e-11 {
+			t.Errorf("∫u_%d² = %.15g by recurrence, %.15g by quadrature (%.1e)", n, c.du[n], du, r)
+		}
+	}
+	if testing.Short() {
+		return
+	}
+	var s Solver
+	for _, m := range []complex128{1.33, 1.05 + 1e-4i} {
+		e, err := s.Sphere(8000, m)
+		if err != nil {
+			t.Fatal(err)
+		}
+		got := s.BackHemisphere()
+		want := oracleBack(8000, oracleResult{a: s.a[:s.n], b: s.b[:s.n]})
+		if math.Abs(got-want) > tolHemi*want+tolHemiA*e.Qsca {
+			t.Errorf("x=8000 m=%v: Qbb %.15g, quadrature %.15g", m, got, want)
+		}
+	}
+}
