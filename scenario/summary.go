@@ -32,7 +32,10 @@ type StationSummary struct {
 	FlocDiameter    float64 // median floc size (upper layer) of the first floc population, m; 0 if none
 	Dominant        string  // the population with the largest share of b_bp
 	DominantShare   float64 // its share, 1
-	MineralShare    float64 // share of b_bp from mineral particles and mineral flocs, 1
+	// Shares of b_bp and of b_p by particle type, 1: mineral grains
+	// (kind mineral), flocs, organic particles (organic and phytoplankton).
+	MineralShare, FlocShare, OrganicShare float64
+	MineralScatterShare                   float64 // share of b_p from mineral grains, 1
 	Secchi          float64 // m
 	ForelUle        int     // most frequent Forel-Ule class over the outputs (0: undefined)
 	Kd              float64 // K_d at the reference wavelength, m⁻¹
@@ -69,11 +72,11 @@ func refWavelength(wl []float64) int {
 	return best
 }
 
-func isMineral(c Component) bool {
+func kindOf(c Component) spec.PopulationKind {
 	if c.Population == nil {
-		return false
+		return ""
 	}
-	return c.Population.Kind == spec.KindMineral || c.Population.Kind == spec.KindFloc
+	return c.Population.Kind
 }
 
 func summarise(r *Result) Summary {
@@ -138,6 +141,7 @@ func summarise(r *Result) Summary {
 	for j := range r.Stations {
 		st := StationSummary{Distance: r.Stations[j]}
 		share := make([]float64, r.NK())
+		var bpSum, bpGrain float64
 		fuCount := make([]int, 22)
 		var bbpSum float64
 		for t := 0; t < nt; t++ {
@@ -173,6 +177,11 @@ func summarise(r *Result) Summary {
 					v := r.Value(iop.Backscattering, p0, k, wref)
 					share[k] += v
 					bbpSum += v
+					b := r.Value(iop.Scattering, p0, k, wref)
+					bpSum += b
+					if kindOf(r.Components[k]) == spec.KindMineral {
+						bpGrain += b
+					}
 				}
 			}
 		}
@@ -192,10 +201,18 @@ func summarise(r *Result) Summary {
 				if share[k]/bbpSum > st.DominantShare {
 					st.DominantShare, st.Dominant = share[k]/bbpSum, c.Name
 				}
-				if isMineral(c) {
+				switch kindOf(c) {
+				case spec.KindMineral:
 					st.MineralShare += share[k] / bbpSum
+				case spec.KindFloc:
+					st.FlocShare += share[k] / bbpSum
+				default:
+					st.OrganicShare += share[k] / bbpSum
 				}
 			}
+		}
+		if bpSum > 0 {
+			st.MineralScatterShare = bpGrain / bpSum
 		}
 		s.Stations = append(s.Stations, st)
 	}
@@ -303,6 +320,12 @@ func (r *Result) WriteSummary(w io.Writer) error {
 // waters (common practice; fits over 400–900 nm are steadier than that).
 const slopeChange = 0.1
 
+// ratioChange is the least relative difference of b_bp/b_p the summary
+// explains: 10 %, about the uncertainty of measured ratios (common
+// practice; Twardowski et al. 2001, J. Geophys. Res. 106:14129, resolve
+// ratios to a few 10⁻³ at values near 0.01).
+const ratioChange = 0.1
+
 // interpretation turns the station table into sentences: each states a
 // computed direction of change and the physical reason the model holds for
 // it, so that it is only printed when the numbers show it.
@@ -344,9 +367,28 @@ func (r *Result) interpretation() string {
 	default:
 		b.WriteString(" A steeper spectrum (larger γ) means relatively more small particles.\n")
 	}
-	fmt.Fprintf(&b, "- The backscattering ratio b_bp/b_p goes from %.4f (river) through %.4f (turbidity maximum) to %.4f (sea); mineral particles and mineral flocs give %.0f %%, %.0f %% and %.0f %% of b_bp there.\n",
-		head.ParticleBbRatio, etm.ParticleBbRatio, mouth.ParticleBbRatio, 100*head.MineralShare, 100*etm.MineralShare, 100*mouth.MineralShare)
-	b.WriteString("  A high ratio marks dense, high-index mineral grains; soft organic particles and porous flocs scatter more of their light forward.\n")
+	fmt.Fprintf(&b, "- The backscattering ratio b_bp/b_p goes from %.4f (river) through %.4f (turbidity maximum) to %.4f (sea).\n",
+		head.ParticleBbRatio, etm.ParticleBbRatio, mouth.ParticleBbRatio)
+	for _, x := range []struct {
+		where string
+		st    StationSummary
+	}{{"river", head}, {"turbidity maximum", etm}, {"sea", mouth}} {
+		fmt.Fprintf(&b, "  %s: mineral grains %.0f %% of b_p and %.0f %% of b_bp; flocs %.0f %% of b_bp; organic particles %.0f %% of b_bp.\n",
+			x.where, 100*x.st.MineralScatterShare, 100*x.st.MineralShare, 100*x.st.FlocShare, 100*x.st.OrganicShare)
+	}
+	hi, lo := s.Stations[0], s.Stations[0]
+	for _, st := range s.Stations {
+		if st.MineralScatterShare > hi.MineralScatterShare {
+			hi = st
+		}
+		if st.MineralScatterShare < lo.MineralScatterShare {
+			lo = st
+		}
+	}
+	if hi.ParticleBbRatio > (1+ratioChange)*lo.ParticleBbRatio && hi.MineralScatterShare > lo.MineralScatterShare {
+		fmt.Fprintf(&b, "  The ratio is higher where dense, high-index mineral grains carry the scattering (%.4f at %.0f km) than where porous flocs and soft organic particles do (%.4f at %.0f km): those scatter more of their light forward.\n",
+			hi.ParticleBbRatio, hi.Distance/1e3, lo.ParticleBbRatio, lo.Distance/1e3)
+	}
 	if len(r.Classes) > 0 {
 		fmt.Fprintf(&b, "- Why the turbidity maximum sits at %.0f km: near-bed water flows landward with the salt and river water seaward above it;", s.ETMPosition/1e3)
 		b.WriteString(" sediment settling out of the upper layer is carried back up-estuary until the landward bottom flow ends, near the limit of salt.")
