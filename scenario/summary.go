@@ -36,9 +36,9 @@ type StationSummary struct {
 	// (kind mineral), flocs, organic particles (organic and phytoplankton).
 	MineralShare, FlocShare, OrganicShare float64
 	MineralScatterShare                   float64 // share of b_p from mineral grains, 1
-	Secchi          float64 // m
-	ForelUle        int     // most frequent Forel-Ule class over the outputs (0: undefined)
-	Kd              float64 // K_d at the reference wavelength, m⁻¹
+	Secchi                                float64 // m
+	ForelUle                              int     // most frequent Forel-Ule class over the outputs (0: undefined)
+	Kd                                    float64 // K_d at the reference wavelength, m⁻¹
 }
 
 // Summary is the digest of a run that the text summary prints.
