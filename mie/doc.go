@@ -68,7 +68,12 @@
 // least 1e−4 of the scattered light goes backwards, and 1.3e−15·Qsca
 // absolute otherwise (the closed-form overlaps cancel when Qbb ≪ Qsca;
 // compared with quadrature for x ≤ 3000). The tests assert bounds about 3×
-// larger. Published tables (Bohren & Huffman
+// larger. The coated sphere is compared with a second 256-bit oracle that
+// evaluates the Aden–Kerker coefficients in Bohren & Huffman's form from
+// Riccati–Bessel functions of complex argument (which the fast recursion
+// never forms): over 30 random cases with outer size parameter up to 1500,
+// core indices 1–3 with k up to 1 and shell indices 1–1.5, Qext, Qsca, Qback
+// and g agree to 2e−11. Published tables (Bohren & Huffman
 // 1983 Appendices A and B; Wiscombe 1979 tables and MIEV0 test cases) are
 // reproduced to every printed digit.
 //
