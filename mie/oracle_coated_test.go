@@ -63,7 +63,7 @@ func bigRiccati(z bc, nmax int) (psi, dpsi, chi, dchi []bc) {
 	chi, dchi = make([]bc, nmax+1), make([]bc, nmax+1)
 	psi[0], chi[0] = s, c
 	chiPrev := bc{new(big.Float).Neg(s.r), new(big.Float).Neg(s.i)} // χ_{−1} = −sin z
-	psiPrev := c                                                     // ψ_{−1} = cos z
+	psiPrev := c                                                    // ψ_{−1} = cos z
 	for n := 1; n <= nmax; n++ {
 		nz := bc{bf(float64(n)), bf(0)}.quo(z)
 		psi[n] = psi[n-1].quo(d[n].add(nz))
@@ -91,7 +91,7 @@ func oracleCoated(xc, y float64, m1, m2 complex128) (qext, qsca, qback, g float6
 	nstop := seriesLength(y) + 30
 	M1, M2 := bcf(real(m1), imag(m1)), bcf(real(m2), imag(m2))
 	X, Y := bcf(xc, 0), bcf(y, 0)
-	p1, dp1, _, _ := bigRiccati(M1.mul(X), nstop)   // m1·x
+	p1, dp1, _, _ := bigRiccati(M1.mul(X), nstop)    // m1·x
 	p2, dp2, c2, dc2 := bigRiccati(M2.mul(X), nstop) // m2·x
 	p3, dp3, c3, dc3 := bigRiccati(M2.mul(Y), nstop) // m2·y
 	py, dpy, cy, dcy := bigRiccati(Y, nstop)         // y (real)
