@@ -34,7 +34,8 @@ type Options struct {
 	// SolarZenith is the sun's zenith angle for reflectance, K_d and
 	// Secchi depth, rad, in [0, π/2); 0 means DefaultSolarZenith.
 	SolarZenith float64
-	// Progress, when not nil, receives one line per stage of the run.
+	// Progress, when not nil, receives one line per stage of the run
+	// once the run has taken longer than a second.
 	Progress io.Writer
 }
 
@@ -58,6 +59,9 @@ type KernelOptions struct {
 // the saving is a factor of three to five in the kernel build, the
 // dominant cost of a run.
 var DefaultKernel = KernelOptions{SubStep: 0.5, BackscatterX: 50, BackscatterSub: 4}
+
+// progressDelay is how long a run goes quiet before progress lines start.
+const progressDelay = time.Second
 
 // DefaultSolarZenith is 30°, a mid-latitude mid-morning sun inside the
 // 0–60° range of the K_d model's simulations (Lee et al. 2005; common
@@ -175,7 +179,8 @@ func Run(ctx context.Context, s spec.Scenario, opt Options) (*Result, error) {
 	}
 	start := time.Now()
 	progress := func(format string, a ...any) {
-		if opt.Progress != nil {
+		// Runs shorter than progressDelay print nothing.
+		if opt.Progress != nil && time.Since(start) >= progressDelay {
 			fmt.Fprintf(opt.Progress, "%6.2fs  "+format+"\n", append([]any{time.Since(start).Seconds()}, a...)...)
 		}
 	}

@@ -288,3 +288,30 @@ func TestDefaultKernelAccuracy(t *testing.T) {
 		}
 	}
 }
+
+// The per-point optics (water, CDOM, every population) allocate nothing
+// once a worker is built (STYLE.md: hot loops allocate nothing).
+func TestFillAllocs(t *testing.T) {
+	r := runSmall(t)
+	s := r.Scenario
+	pops, err := buildPopulations(context.Background(), s, Options{Kernel: DefaultKernel}, referenceWater(s), func(string, ...any) {})
+	if err != nil {
+		t.Fatal(err)
+	}
+	opt, _ := Options{}.normalise()
+	w, err := r.newWorker(pops, opt)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for i := range pops {
+		w.mass[i], w.flocD[i] = 0.05, 80e-6
+	}
+	allocs := testing.AllocsPerRun(20, func() {
+		if err := w.fill(r, pops, 12, 11.5); err != nil {
+			t.Fatal(err)
+		}
+	})
+	if allocs != 0 {
+		t.Errorf("fill allocates %g times per call, want 0", allocs)
+	}
+}
