@@ -219,18 +219,19 @@ func (s *Solver) finish(x float64, m complex128, ha, hb []complex128, nstop int,
 	var back complex128
 	sign := -1.0
 	invm := 1 / m
+	ix := 1 / x
 	for n := 1; n <= nstop; n++ {
 		fn := float64(n)
 		var psi float64
 		if small {
 			psi = psiSeries(n, x)
 		} else {
-			psi = (2*fn-1)*psi1/x - psi0
+			psi = (2*fn-1)*ix*psi1 - psi0
 		}
-		chi := (2*fn-1)*chi1/x - chi0
+		chi := (2*fn-1)*ix*chi1 - chi0
 		xi := complex(psi, -chi)
 		xi1 := complex(psi1, -chi1)
-		nx := complex(fn/x, 0)
+		nx := complex(fn*ix, 0)
 		ta := ha[n]*invm + nx
 		tb := hb[n]*m + nx
 		an := complex(real(ta)*psi-psi1, imag(ta)*psi) * recip(ta*xi-xi1)
