@@ -33,7 +33,7 @@ func RunEstuary(ctx context.Context, e spec.Estuary, opt Options) (*EstuaryRun, 
 	if err != nil {
 		return nil, err
 	}
-	set := &settling{nc: len(e.Classes), interval: opt.FlocInterval, outputs: cfg.Run.Output}
+	set := &settling{ctx: ctx, nc: len(e.Classes), interval: opt.FlocInterval, outputs: cfg.Run.Output}
 	set.constant = make([]float64, len(e.Classes))
 	for k, c := range e.Classes {
 		if c.Settling != spec.SettlingFloc {

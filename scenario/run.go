@@ -196,6 +196,7 @@ func Run(ctx context.Context, s spec.Scenario, opt Options) (*Result, error) {
 	if err != nil {
 		return nil, err
 	}
+	set.ctx = ctx
 	progress("running the estuary model: %d cells, %.1f days; building optical kernels for %d populations",
 		cfg.Geometry.Cells, cfg.Run.Duration/86400, len(s.Mixture.Populations))
 	var ms mixing.Settling

@@ -2,6 +2,7 @@ package scenario
 
 import (
 	"bytes"
+	"errors"
 	"context"
 	"math"
 	"os"
@@ -313,5 +314,15 @@ func TestFillAllocs(t *testing.T) {
 	})
 	if allocs != 0 {
 		t.Errorf("fill allocates %g times per call, want 0", allocs)
+	}
+}
+
+// A cancelled context stops the run with the context's error (an
+// interrupt leaves no partial result and, in the CLI, no partial file).
+func TestCancel(t *testing.T) {
+	ctx, cancel := context.WithCancel(context.Background())
+	cancel()
+	if _, err := Run(ctx, smallDemo(t), Options{}); !errors.Is(err, context.Canceled) {
+		t.Errorf("Run with a cancelled context: %v, want context.Canceled", err)
 	}
 }

@@ -1,6 +1,7 @@
 package scenario
 
 import (
+	"context"
 	"fmt"
 	"math"
 	"sort"
@@ -46,8 +47,9 @@ type flocClass struct {
 // into intervals of at most interval seconds (and always at output times),
 // each integrated by floc.Model.Step in one call.
 type settling struct {
-	nc       int       // classes
-	constant []float64 // per class; NaN for floc classes
+	ctx      context.Context // cancels the estuary run between steps; nil for none
+	nc       int             // classes
+	constant []float64       // per class; NaN for floc classes
 	flocs    []flocClass
 	interval float64
 	outputs  []float64
@@ -59,6 +61,11 @@ type settling struct {
 }
 
 func (s *settling) Velocities(dt float64, local []mixing.Local, ws []float64) error {
+	if s.ctx != nil {
+		if err := s.ctx.Err(); err != nil {
+			return err
+		}
+	}
 	nc := s.nc
 	if !s.started {
 		s.started = true
