@@ -2,8 +2,8 @@ package scenario
 
 import (
 	"bytes"
-	"errors"
 	"context"
+	"errors"
 	"math"
 	"os"
 	"path/filepath"
