@@ -385,13 +385,26 @@ func (r *Result) interpretation() string {
 			lo = st
 		}
 	}
+	low, big := s.Stations[0], s.Stations[0]
+	for _, st := range s.Stations {
+		if st.ParticleBbRatio < low.ParticleBbRatio {
+			low = st
+		}
+		if st.FlocDiameter > big.FlocDiameter {
+			big = st
+		}
+	}
+	if big.FlocDiameter > 0 && low.Distance == big.Distance && head.ParticleBbRatio > (1+ratioChange)*low.ParticleBbRatio {
+		fmt.Fprintf(&b, "  The ratio is lowest at %.0f km, where flocs are largest (%.0f µm in the upper layer against %.0f µm at the river end): large porous aggregates send most of their light forward, while disaggregated mud (mostly loose mineral primaries in fresh water) backscatters like mineral grains.\n",
+			low.Distance/1e3, big.FlocDiameter*1e6, head.FlocDiameter*1e6)
+	}
 	if hi.ParticleBbRatio > (1+ratioChange)*lo.ParticleBbRatio && hi.MineralScatterShare > lo.MineralScatterShare {
 		fmt.Fprintf(&b, "  The ratio is higher where dense, high-index mineral grains carry the scattering (%.4f at %.0f km) than where porous flocs and soft organic particles do (%.4f at %.0f km): those scatter more of their light forward.\n",
 			hi.ParticleBbRatio, hi.Distance/1e3, lo.ParticleBbRatio, lo.Distance/1e3)
 	}
 	if len(r.Classes) > 0 {
 		fmt.Fprintf(&b, "- Why the turbidity maximum sits at %.0f km: near-bed water flows landward with the salt and river water seaward above it;", s.ETMPosition/1e3)
-		b.WriteString(" sediment settling out of the upper layer is carried back up-estuary until the landward bottom flow ends, near the limit of salt.")
+		fmt.Fprintf(&b, " sediment settling out of the upper layer is carried back up-estuary by the bottom flow and collects where that flow weakens, toward the limit of salt (%.0f km).", s.IntrusionLength/1e3)
 		if s.ETMFlocDiameter > 0 && s.ETMFlocDiameter > s.RiverFlocDiameter {
 			fmt.Fprintf(&b, " Flocs grow in salt water (%.0f µm there against %.0f µm in fresh water), settle faster and are trapped more strongly.", s.ETMFlocDiameter*1e6, s.RiverFlocDiameter*1e6)
 		}
