@@ -159,11 +159,15 @@ type namedTable struct {
 }
 
 func (r *Result) csvTables() []namedTable {
-	return []namedTable{
+	t := []namedTable{
 		{"section.csv", r.SectionTable()},
 		{"spectra.csv", r.SpectraTable()},
 		{"apparent.csv", r.ApparentTable()},
 	}
+	for i, in := range r.Instruments {
+		t = append(t, namedTable{"instrument_" + in.Name + ".csv", r.InstrumentTable(i)})
+	}
+	return t
 }
 
 // WriteCSV writes the CSV tables of the run into dir (created if needed)

@@ -11,6 +11,7 @@ import (
 	"github.com/murk-optics/murk/scenario/iop"
 	"github.com/murk-optics/murk/scenario/netcdf"
 	"github.com/murk-optics/murk/scenario/netcdf/cf"
+	"github.com/murk-optics/murk/scenario/spec"
 )
 
 // NetCDFEpoch is the nominal calendar date of the start of a run (the
@@ -100,6 +101,16 @@ func (r *Result) Dataset() *cf.Dataset {
 	add("secchi_depth", []string{"time", "distance"}, "m", "Secchi disk depth", cf.StdSecchiDepth)
 	add("hue_angle", []string{"time", "distance"}, "degree", "hue angle of the water-leaving light (CIE 1931)", "")
 	add("forel_ule", []string{"time", "distance"}, "1", "Forel-Ule colour class (1-21; 0 undefined)", "")
+	for _, in := range r.Instruments {
+		std := ""
+		switch in.Kind {
+		case spec.Transmissometer:
+			std = cf.StdBeamAttenuation
+		case spec.Backscatter:
+			std = cf.StdBackscattering
+		}
+		add("instrument_"+in.Name, tdl, instrumentUnit(in.Kind), fmt.Sprintf("simulated %s %s: %s", in.Kind, in.Name, instrumentQuantity(in.Kind)), std)
+	}
 	return d
 }
 
@@ -199,6 +210,16 @@ func (r *Result) WriteNetCDF(path string) error {
 			v []float64
 		}{{"bbp_slope", r.ParticleBbSlope}, {"cp_slope", r.ParticleCSlope}, {"rrs", r.Rrs}, {"kd", r.Kd}, {"secchi_depth", r.Secchi}, {"hue_angle", r.Hue}, {"forel_ule", fu}} {
 			if err := put(v.n, v.v); err != nil {
+				return err
+			}
+		}
+		ni := len(r.Instruments)
+		for i, in := range r.Instruments {
+			v := make([]float64, np)
+			for p := range v {
+				v[p] = r.Readings[p*ni+i].Value
+			}
+			if err := put("instrument_"+in.Name, v); err != nil {
 				return err
 			}
 		}

@@ -124,6 +124,12 @@ type Result struct {
 
 	SolarZenith float64 // rad, the sun of the apparent properties
 
+	// Instruments are the simulated sensors (see instruments.go);
+	// Readings[p·len(Instruments) + i] is instrument i at point p.
+	Instruments        []spec.Instrument
+	Readings           []InstrumentReading
+	SkippedInstruments []string
+
 	Summary Summary
 }
 
@@ -365,6 +371,8 @@ func newResult(s spec.Scenario, cfg mixing.Config, est *mixing.Result, pops []*p
 	r.Rrs, r.Kd = f(nq*nw), f(nq*nw)
 	r.Secchi, r.Hue = f(nq), f(nq)
 	r.ForelUle = make([]int, nq)
+	r.Instruments, r.SkippedInstruments = usableInstruments(s)
+	r.Readings = make([]InstrumentReading, np*len(r.Instruments))
 	r.SeenFlags = make([]seen.Flag, nq)
 	return r
 }
@@ -414,6 +422,7 @@ type worker struct {
 	obs     seen.Observer
 	app     seen.Apparent
 	bbw     []float64
+	vsf     seen.VSF // one wavelength of the total VSF, for the instruments
 	mass    []float64 // per population: dry mass, kg m⁻³ (class-riding and flocs)
 	flocD   []float64 // per population: floc median diameter, m
 }
@@ -491,6 +500,7 @@ func (r *Result) newWorker(pops []*popOptics, opt Options) (*worker, error) {
 	}
 	w.bbp, w.cp = make([]float64, r.NW()), make([]float64, r.NW())
 	w.bbw = make([]float64, r.NW())
+	w.vsf = seen.VSF{Angle: r.Angles, Beta: make([]float64, r.NA())}
 	w.mass, w.flocD = make([]float64, len(pops)), make([]float64, len(pops))
 	wa := r.Scenario.Mixture.Water
 	so := wa.OceanSalinity
@@ -610,6 +620,9 @@ func (r *Result) evaluateTime(w *worker, t int, set *settling, pops []*popOptics
 			w.spectra.Sum(&w.part, iop.OfKind(iop.Particles))
 			r.ParticleBbSlope[p] = slopeOrZero(w.spectra, &w.part, iop.Backscattering, r.Wavelengths)
 			r.ParticleCSlope[p] = slopeOrZero(w.spectra, &w.part, iop.Attenuation, r.Wavelengths)
+			if err := r.readInstruments(w, p, sal, temp); err != nil {
+				return err
+			}
 			if l == 0 {
 				if err := r.see(w, t*len(r.Stations)+j); err != nil {
 					return err

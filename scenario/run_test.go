@@ -14,11 +14,12 @@ import (
 	"github.com/murk-optics/murk/mixing"
 	"github.com/murk-optics/murk/scenario/demo"
 	"github.com/murk-optics/murk/scenario/iop"
+	"github.com/murk-optics/murk/scenario/seen"
 	"github.com/murk-optics/murk/scenario/spec"
 	"github.com/murk-optics/murk/scenario/water"
 )
 
-// smallDemo is the demo scenario cut down for tests: 5 wavelengths, 20
+// smallDemo is the demo scenario cut down for tests: 6 wavelengths, 20
 // size bins, 40 cells, a 3-day spin-up and 4 hours of output.
 func smallDemo(t testing.TB) spec.Scenario {
 	t.Helper()
@@ -26,7 +27,8 @@ func smallDemo(t testing.TB) spec.Scenario {
 	if err != nil {
 		t.Fatal(err)
 	}
-	s.Mixture.Optics.Wavelengths = []float64{400e-9, 500e-9, 550e-9, 650e-9, 850e-9}
+	// 660, 700 and 860 nm: the demo's instruments sit on the grid.
+	s.Mixture.Optics.Wavelengths = []float64{400e-9, 500e-9, 550e-9, 660e-9, 700e-9, 860e-9}
 	s.Mixture.Optics.SizeBins = 20
 	s.Estuary.Geometry.Cells = 40
 	s.Estuary.Run.SpinUp = 3 * 86400
@@ -324,5 +326,67 @@ func TestCancel(t *testing.T) {
 	cancel()
 	if _, err := Run(ctx, smallDemo(t), Options{}); !errors.Is(err, context.Canceled) {
 		t.Errorf("Run with a cancelled context: %v, want context.Canceled", err)
+	}
+}
+
+// The simulated sensors follow their published definitions from the
+// run's own total VSF: the backscatter sensor reads b_b = 2π·χ_p(θ)·(β(θ) −
+// β_w(θ)) + b_bw (Sullivan et al. 2013, χ_p from package seen's table)
+// and the turbidity signal is β(90°) − β_w(90°) at 860 nm (ISO 7027-1
+// geometry), with water from Zhang, Hu & He (2009).
+func TestInstruments(t *testing.T) {
+	r := runSmall(t)
+	if len(r.Instruments) != 3 || len(r.SkippedInstruments) != 0 {
+		t.Fatalf("instruments %v, skipped %v; want the demo's three", r.Instruments, r.SkippedInstruments)
+	}
+	angleIndex := func(theta float64) int {
+		for i, a := range r.Angles {
+			if math.Abs(a-theta) < 1e-9 {
+				return i
+			}
+		}
+		t.Fatalf("angle %g not on the grid", theta)
+		return -1
+	}
+	wlIndex := func(l float64) int {
+		for i, v := range r.Wavelengths {
+			if math.Abs(v-l) < 1e-15 {
+				return i
+			}
+		}
+		t.Fatalf("wavelength %g not on the grid", l)
+		return -1
+	}
+	for i, in := range r.Instruments {
+		for p := range r.Salinity {
+			rd := r.Readings[p*len(r.Instruments)+i]
+			med := water.Medium{Salinity: r.Salinity[p], TemperatureC: r.Temperature[p]}
+			switch in.Kind {
+			case spec.Backscatter:
+				w, a := wlIndex(in.Wavelength), angleIndex(in.Angle)
+				sc, _ := water.Scatter(in.Wavelength, med, 0)
+				chi, _, err := seen.Chi(in.Angle)
+				if err != nil {
+					t.Fatal(err)
+				}
+				beta := r.VSF[(p*r.NW()+w)*r.NA()+a]
+				want := 2*math.Pi*chi*(beta-sc.VSF(in.Angle)) + sc.Bb
+				if math.Abs(rd.Value-want) > 1e-9*want {
+					t.Fatalf("%s point %d: %g, want %g", in.Name, p, rd.Value, want)
+				}
+			case spec.Turbidity:
+				w, a := wlIndex(860e-9), angleIndex(math.Pi/2)
+				sc, _ := water.Scatter(860e-9, med, 0)
+				want := r.VSF[(p*r.NW()+w)*r.NA()+a] - sc.VSF(math.Pi/2)
+				if math.Abs(rd.Value-want) > 1e-9*want {
+					t.Fatalf("%s point %d: %g, want %g", in.Name, p, rd.Value, want)
+				}
+			case spec.Transmissometer:
+				// A meter that collects forward light reads less than c.
+				if !(rd.Value <= rd.True && rd.Value > 0) {
+					t.Fatalf("%s point %d: c_m %g, c %g; want 0 < c_m ≤ c", in.Name, p, rd.Value, rd.True)
+				}
+			}
+		}
 	}
 }

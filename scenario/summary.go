@@ -8,6 +8,7 @@ import (
 
 	"github.com/murk-optics/murk/mixing"
 	"github.com/murk-optics/murk/scenario/iop"
+	"github.com/murk-optics/murk/scenario/seen"
 	"github.com/murk-optics/murk/scenario/spec"
 )
 
@@ -305,6 +306,9 @@ func (r *Result) WriteSummary(w io.Writer) error {
 	}
 	b.WriteString("\n")
 	b.WriteString(r.interpretation())
+	if len(r.Instruments) > 0 {
+		b.WriteString(r.instrumentLines())
+	}
 	if s.PigmentFromParticles {
 		b.WriteString("\nNote: chlorophyll is carried by the phytoplankton population's own absorption, so it is not added again as dissolved pigment.\n")
 	}
@@ -313,6 +317,54 @@ func (r *Result) WriteSummary(w io.Writer) error {
 	b.WriteString("\n")
 	_, err := io.WriteString(w, b.String())
 	return err
+}
+
+// instrumentLines reports each simulated sensor's tidal-mean upper-layer
+// reading at the mouth, the station nearest the turbidity maximum and the
+// river end, with the flags raised anywhere.
+func (r *Result) instrumentLines() string {
+	var b strings.Builder
+	b.WriteString("\nSimulated instruments (upper layer, tidal means; sea / turbidity maximum / river):\n")
+	order := r.stationOrder()
+	if len(order) == 0 {
+		return ""
+	}
+	mouth, head := order[0], order[len(order)-1]
+	etm := order[0]
+	for _, j := range order {
+		if math.Abs(r.Stations[j]-r.Summary.ETMPosition) < math.Abs(r.Stations[etm]-r.Summary.ETMPosition) {
+			etm = j
+		}
+	}
+	ni := len(r.Instruments)
+	for i, in := range r.Instruments {
+		mean := func(j int) (v, t float64) {
+			for ti := range r.Times {
+				rd := r.Readings[r.Point(ti, j, 0)*ni+i]
+				v += rd.Value / float64(len(r.Times))
+				t += rd.True / float64(len(r.Times))
+			}
+			return v, t
+		}
+		var flags seen.Flag
+		for p := 0; p*ni+i < len(r.Readings); p++ {
+			flags |= r.Readings[p*ni+i].Flags
+		}
+		v0, t0 := mean(mouth)
+		v1, t1 := mean(etm)
+		v2, t2 := mean(head)
+		fmt.Fprintf(&b, "  %-12s %s: %.3g / %.3g / %.3g %s (model value %.3g / %.3g / %.3g)",
+			in.Name, instrumentQuantity(in.Kind), v0, v1, v2, instrumentUnit(in.Kind), t0, t1, t2)
+		if flags != 0 {
+			fmt.Fprintf(&b, "; flags: %s", flags)
+		}
+		b.WriteString("\n")
+	}
+	if len(r.SkippedInstruments) > 0 {
+		fmt.Fprintf(&b, "  skipped: %s\n", strings.Join(r.SkippedInstruments, ", "))
+	}
+	b.WriteString("  The turbidity sensor is reported as the particle β(90°) at 860 nm, the signal an ISO 7027 nephelometer measures; converting it to FNU needs the optics of a formazin standard.\n")
+	return b.String()
 }
 
 // slopeChange is the least change of γ_bbp the summary calls a change:

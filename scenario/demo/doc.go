@@ -6,7 +6,7 @@
 //
 // The resolution is chosen for a run of a couple of seconds: 80 cells of
 // 1 km, an 11-day spin-up and two M2 tides of output, 21 wavelengths from
-// 400 to 900 nm, 32 size bins per kernel and three VSF angles.
+// 400 to 900 nm, 32 size bins per kernel and six VSF angles.
 package demo
 
 import (
