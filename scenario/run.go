@@ -422,7 +422,7 @@ type worker struct {
 	obs     seen.Observer
 	app     seen.Apparent
 	bbw     []float64
-	vsf     seen.VSF // one wavelength of the total VSF, for the instruments
+	vsf     seen.VSF  // one wavelength of the total VSF, for the instruments
 	mass    []float64 // per population: dry mass, kg m⁻³ (class-riding and flocs)
 	flocD   []float64 // per population: floc median diameter, m
 }
