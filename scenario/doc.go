@@ -43,6 +43,10 @@
 //     et al. 2002 quadratic model), K_d (Lee et al. 2013), Secchi depth (Lee
 //     et al. 2015) and colour (CIE 1931, hue angle, Forel-Ule class), for a
 //     sun at Options.SolarZenith.
+//  5. Instruments, per station, layer and time: the scenario's
+//     transmissometers, backscatter sensors and nephelometers simulated from
+//     the total IOPs and VSF with package seen (see instruments.go for what
+//     each reports and its limits).
 //
 // Station values are interpolated linearly between cell centres (floc size
 // in ln D), held constant between the mouth and the first centre and

@@ -290,6 +290,16 @@ func (r *Result) WriteSummary(w io.Writer) error {
 			order[j], order[j-1] = order[j-1], order[j]
 		}
 	}
+	if len(order) > maxSummaryRows {
+		// Every k-th station, keeping both ends.
+		var sub []int
+		for i := 0; i < len(order); i++ {
+			if i%((len(order)+maxSummaryRows-2)/(maxSummaryRows-1)) == 0 || i == len(order)-1 {
+				sub = append(sub, order[i])
+			}
+		}
+		order = sub
+	}
 	for _, j := range order {
 		st := s.Stations[j]
 		floc := "–"
@@ -366,6 +376,10 @@ func (r *Result) instrumentLines() string {
 	b.WriteString("  The turbidity sensor is reported as the particle β(90°) at 860 nm, the signal an ISO 7027 nephelometer measures; converting it to FNU needs the optics of a formazin standard.\n")
 	return b.String()
 }
+
+// maxSummaryRows bounds the station table of the text summary (the CSV
+// tables hold every station).
+const maxSummaryRows = 12
 
 // slopeChange is the least change of γ_bbp the summary calls a change:
 // 0.1 is about the scatter of γ_bbp fitted to field spectra of similar
