@@ -1,6 +1,7 @@
 package scenario
 
 import (
+	"bytes"
 	"fmt"
 	"io"
 	"os"
@@ -24,7 +25,9 @@ func layerName(l int) string {
 // SectionTable is the along-channel section: one row per output time,
 // station and layer with the water state and the bulk IOPs at the
 // reference wavelength (nearest 550 nm), totals and particles.
-func (r *Result) SectionTable() *table.Table {
+func (r *Result) SectionTable() *table.Table { return r.sectionTable(0, len(r.Times)) }
+
+func (r *Result) sectionTable(t0, t1 int) *table.Table {
 	wref := refWavelength(r.Wavelengths)
 	t := &table.Table{Title: fmt.Sprintf("section along the channel (IOPs at %.0f nm)", r.Wavelengths[wref]*1e9)}
 	t.Columns = []table.Column{
@@ -47,7 +50,7 @@ func (r *Result) SectionTable() *table.Table {
 		table.Column{Name: "bbp_over_bp", Unit: "1"}, table.Column{Name: "bbp_slope", Unit: "1"},
 		table.Column{Name: "cp_slope", Unit: "1"},
 	)
-	for ti := range r.Times {
+	for ti := t0; ti < t1; ti++ {
 		for j := range r.Stations {
 			for l := 0; l < mixing.Layers; l++ {
 				p := r.Point(ti, j, l)
@@ -91,7 +94,9 @@ func (r *Result) popComponent(i int) int {
 
 // SpectraTable holds the spectra at every station, layer and output time:
 // each component's a, b and b_b and the totals.
-func (r *Result) SpectraTable() *table.Table {
+func (r *Result) SpectraTable() *table.Table { return r.spectraTable(0, len(r.Times)) }
+
+func (r *Result) spectraTable(t0, t1 int) *table.Table {
 	t := &table.Table{Title: "spectra at stations"}
 	t.Columns = []table.Column{{Name: "time", Unit: "h"}, {Name: "distance", Unit: "km"}, {Name: "layer"}, {Name: "wavelength", Unit: "nm"}}
 	for _, c := range r.Components {
@@ -102,7 +107,7 @@ func (r *Result) SpectraTable() *table.Table {
 	}
 	t.Columns = append(t.Columns, table.Column{Name: "a", Unit: "m-1"}, table.Column{Name: "b", Unit: "m-1"},
 		table.Column{Name: "bb", Unit: "m-1"}, table.Column{Name: "c", Unit: "m-1"}, table.Column{Name: "bb_over_b", Unit: "1"})
-	for ti := range r.Times {
+	for ti := t0; ti < t1; ti++ {
 		for j := range r.Stations {
 			for l := 0; l < mixing.Layers; l++ {
 				p := r.Point(ti, j, l)
@@ -130,13 +135,15 @@ func (r *Result) SpectraTable() *table.Table {
 // R_rs and K_d per wavelength, with the Secchi depth, hue angle and
 // Forel-Ule class of the spectrum (computed from the upper layer, taken
 // as optically deep and homogeneous).
-func (r *Result) ApparentTable() *table.Table {
+func (r *Result) ApparentTable() *table.Table { return r.apparentTable(0, len(r.Times)) }
+
+func (r *Result) apparentTable(t0, t1 int) *table.Table {
 	t := &table.Table{Title: "reflectance and clarity at stations (upper layer)"}
 	t.Columns = []table.Column{{Name: "time", Unit: "h"}, {Name: "distance", Unit: "km"}, {Name: "wavelength", Unit: "nm"},
 		{Name: "Rrs", Unit: "sr-1"}, {Name: "Kd", Unit: "m-1"}, {Name: "secchi_depth", Unit: "m"},
 		{Name: "hue_angle", Unit: "degree"}, {Name: "forel_ule", Unit: "1"}, {Name: "flags"}}
 	nw := r.NW()
-	for ti := range r.Times {
+	for ti := t0; ti < t1; ti++ {
 		for j := range r.Stations {
 			q := ti*len(r.Stations) + j
 			for w, lam := range r.Wavelengths {
@@ -153,22 +160,49 @@ func WriteTable(path string, t *table.Table) error {
 	return safefile.Write(path, func(w io.Writer) error { return t.Write(w, table.CSV) })
 }
 
+// namedTable is a CSV file built one output time at a time, so that a
+// long run never holds a whole table of boxed cells in memory.
 type namedTable struct {
-	name string
-	t    *table.Table
+	name  string
+	chunk func(t0, t1 int) *table.Table
 }
 
 func (r *Result) csvTables() []namedTable {
 	t := []namedTable{
-		{"section.csv", r.SectionTable()},
-		{"spectra.csv", r.SpectraTable()},
-		{"apparent.csv", r.ApparentTable()},
+		{"section.csv", r.sectionTable},
+		{"spectra.csv", r.spectraTable},
+		{"apparent.csv", r.apparentTable},
 	}
 	for i, in := range r.Instruments {
-		t = append(t, namedTable{"instrument_" + in.Name + ".csv", r.InstrumentTable(i)})
+		t = append(t, namedTable{"instrument_" + in.Name + ".csv", func(t0, t1 int) *table.Table { return r.instrumentTable(i, t0, t1) }})
 	}
 	return t
 }
+
+// writeCSV writes the table in chunks of output times: the header with the
+// first chunk, then only the rows of the others (their header line, the
+// same for every chunk, is dropped).
+func (nt namedTable) writeCSV(w io.Writer, times int) error {
+	var buf bytes.Buffer
+	for t0 := 0; t0 < max(times, 1); t0 += csvChunk {
+		buf.Reset()
+		if err := nt.chunk(t0, min(t0+csvChunk, times)).WriteCSV(&buf); err != nil {
+			return err
+		}
+		b := buf.Bytes()
+		if t0 > 0 {
+			i := bytes.IndexByte(b, '\n')
+			b = b[i+1:]
+		}
+		if _, err := w.Write(b); err != nil {
+			return err
+		}
+	}
+	return nil
+}
+
+// csvChunk is the number of output times per chunk of a CSV file.
+const csvChunk = 8
 
 // WriteCSV writes the CSV tables of the run into dir (created if needed)
 // and returns the paths written. Every file is written to a temporary file
@@ -180,7 +214,7 @@ func (r *Result) WriteCSV(dir string) ([]string, error) {
 	var out []string
 	for _, f := range r.csvTables() {
 		p := filepath.Join(dir, f.name)
-		if err := WriteTable(p, f.t); err != nil {
+		if err := safefile.Write(p, func(w io.Writer) error { return f.writeCSV(w, len(r.Times)) }); err != nil {
 			return out, err
 		}
 		out = append(out, p)

@@ -146,7 +146,9 @@ func (r *Result) readInstruments(w *worker, p int, sal, temp float64) error {
 
 // InstrumentTable returns the readings of instrument i at every output
 // time, station and layer.
-func (r *Result) InstrumentTable(i int) *table.Table {
+func (r *Result) InstrumentTable(i int) *table.Table { return r.instrumentTable(i, 0, len(r.Times)) }
+
+func (r *Result) instrumentTable(i, t0, t1 int) *table.Table {
 	in := r.Instruments[i]
 	u := instrumentUnit(in.Kind)
 	q := instrumentQuantity(in.Kind)
@@ -157,7 +159,7 @@ func (r *Result) InstrumentTable(i int) *table.Table {
 	t := &table.Table{Title: fmt.Sprintf("instrument %s: %s, %s at %.0f nm", in.Name, in.Kind, q, lambda*1e9)}
 	t.Columns = []table.Column{{Name: "time", Unit: "h"}, {Name: "distance", Unit: "km"}, {Name: "layer"},
 		{Name: "reading", Unit: u}, {Name: "model_value", Unit: u}, {Name: "flags"}}
-	for ti := range r.Times {
+	for ti := t0; ti < t1; ti++ {
 		for j := range r.Stations {
 			for l := 0; l < 2; l++ {
 				p := r.Point(ti, j, l)

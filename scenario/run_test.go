@@ -152,7 +152,7 @@ func TestDeterministic(t *testing.T) {
 		}
 		var b bytes.Buffer
 		for _, tb := range r.csvTables() {
-			if err := tb.t.WriteCSV(&b); err != nil {
+			if err := tb.writeCSV(&b, len(r.Times)); err != nil {
 				t.Fatal(err)
 			}
 		}
@@ -388,5 +388,25 @@ func TestInstruments(t *testing.T) {
 				}
 			}
 		}
+	}
+}
+
+// Chunked CSV writing gives the same bytes as the whole table at once.
+func TestChunkedCSV(t *testing.T) {
+	s := smallDemo(t)
+	s.Estuary.Run.Duration = 20 * 3600 // 11 output times: two chunks
+	r, err := Run(context.Background(), s, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	var whole, chunked bytes.Buffer
+	if err := r.SpectraTable().WriteCSV(&whole); err != nil {
+		t.Fatal(err)
+	}
+	if err := (namedTable{chunk: r.spectraTable}).writeCSV(&chunked, len(r.Times)); err != nil {
+		t.Fatal(err)
+	}
+	if len(r.Times) <= csvChunk || !bytes.Equal(whole.Bytes(), chunked.Bytes()) {
+		t.Errorf("%d times: chunked CSV differs from the whole table (%d vs %d bytes)", len(r.Times), chunked.Len(), whole.Len())
 	}
 }
