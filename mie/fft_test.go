@@ -1,6 +1,7 @@
 package mie
 
 import (
+	"fmt"
 	"math"
 	"math/cmplx"
 	"testing"
@@ -38,18 +39,11 @@ func BenchmarkFFT(b *testing.B) {
 	for _, n := range []int{1024, 16384} {
 		p := planFor(n)
 		x := make([]complex128, n)
-		b.Run(formatN(n), func(b *testing.B) {
+		b.Run(fmt.Sprintf("n=%d", n), func(b *testing.B) {
 			b.ReportAllocs()
 			for b.Loop() {
 				p.transform(x, false)
 			}
 		})
 	}
-}
-
-func formatN(n int) string {
-	if n == 1024 {
-		return "n=1024"
-	}
-	return "n=16384"
 }

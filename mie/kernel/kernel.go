@@ -54,8 +54,8 @@ type Spec struct {
 	SubStep float64
 	// MinSub and MaxSub bound the sub-points per bin (0 means 3 and 2048).
 	MinSub, MaxSub int
-	// Cbb needs the hemispherical integral, O(x²) per sphere against O(x)
-	// for the rest (at x = 5000 about 140 ms against 0.4 ms). Below size
+	// Cbb needs the hemispherical integral, about ten times the cost of the
+	// rest at large x (see the package documentation). Below size
 	// parameter BackscatterX (0 means 200) Cbb is evaluated at every
 	// sub-point; in bins reaching beyond it, at BackscatterSub jittered
 	// strata of its own (0 means 4; negative means every sub-point, exact
