@@ -40,14 +40,6 @@ func checkWavelength(field string, lambda, loNM, hiNM float64) error {
 	return checkRange(field, toNM(lambda), loNM, hiNM, "nm")
 }
 
-// checkFinite returns an error if v is NaN or infinite.
-func checkFinite(field string, v float64, unit string) error {
-	if math.IsNaN(v) || math.IsInf(v, 0) {
-		return fmt.Errorf("water: %s = %g %s is not a finite number", field, v, unit)
-	}
-	return nil
-}
-
 // toNM converts a wavelength in metres to nanometres, rounded to 1e-6 nm so
 // that a wavelength written as 700e-9 lands exactly on the 700 nm node and
 // range limits (not 700.0000000000001).
