@@ -47,7 +47,7 @@ func TestEqualEnergyWhite(t *testing.T) {
 	// equal-energy spectrum has x = y = 1/3 (CIE 015:2004). Tolerance: the
 	// identity holds for the full 1 nm table; sampling at 5 nm with the
 	// trapezium rule over 380–780 nm moves x and y by ~1e-5 (measured
-	// 1.8e-5), so 5e-5 separates that from any transcription error (a single
+	// 1.8e-5), so 5e-5 separates that from any copying error (a single
 	// wrong digit in the table's fourth place moves x by ~1e-4).
 	const tol = 5e-5
 	wl := grid(360, 830, 1)
