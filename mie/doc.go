@@ -61,7 +61,7 @@
 //
 // Against the oracle over a seeded random sample of x ∈ [1e−6, 2e4],
 // n ∈ [0.5, 3], k ∈ {0} ∪ [1e−6, 10] plus hand-picked hard cases (m − 1 down
-// to 0.001, |m|x up to 4·10⁴), the worst errors measured are (relative unless
+// to 0.001, |m|x up to 3·10⁴), the worst errors measured are (relative unless
 // stated): Qext and Qsca 4e−13; Qabs 9e−15 of Qext (absolute error in units
 // of Qext: Qabs is a difference, so its relative error grows as absorption
 // vanishes); g 7e−14 absolute; Qback 6e−11; Qbb 1e−12 relative where at
