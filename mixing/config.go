@@ -101,6 +101,11 @@ type Closure struct {
 	// tidal mixing between the layers. The zero value is off, the default
 	// (doc.go); DefaultTurner gives Turner's (1986) coefficients.
 	Entrainment Turner
+	// Damping multiplies the tidal part of K_S by f(Ri_b), Ri_b the bulk
+	// layer Richardson number of the tidal flow in each cell (doc.go,
+	// Vertical exchange). The zero value is no damping; the default is
+	// MunkAnderson.
+	Damping RichardsonDamping
 }
 
 // RunControl controls the time integration.
@@ -133,6 +138,8 @@ type Series struct {
 //   - c_i = 3e-4, interfacial drag at a salt wedge (Sørgard, Martinsen & Aas 1990, JGR 95,
 //     report 1.1e-4 to 4.2e-4).
 //   - lower layer at least 0.1 of the depth (numerical choice, see doc.go).
+//   - tidal K_S damped by the Munk & Anderson (1948) scalar function of the
+//     bulk layer Richardson number of the tidal flow (see doc.go, Vertical exchange).
 //   - no entrainment beyond tidal mixing (see doc.go, departures).
 func DefaultClosure() Closure {
 	return Closure{
@@ -143,6 +150,7 @@ func DefaultClosure() Closure {
 		HalineContraction: 7.7e-4,
 		InterfaceFriction: 3e-4,
 		MinLayerFraction:  0.1,
+		Damping:           MunkAnderson(),
 	}
 }
 
@@ -292,6 +300,8 @@ func (cfg *Config) Validate() error {
 	c.rng("closure.entrainment.a", k.Entrainment.A, 0, 0.2, false, false, "")
 	c.rng("closure.entrainment.b", k.Entrainment.B, 0, 10, false, false, "")
 	c.rng("closure.entrainment.c", k.Entrainment.C, 0, 100, false, false, "")
+	c.rng("closure.damping.alpha", k.Damping.Alpha, 0, 100, false, false, "")
+	c.rng("closure.damping.exponent", k.Damping.Exponent, 0, 5, false, false, "")
 	if k.Entrainment.A > 0 && k.Entrainment.B == 0 {
 		c.addf("closure.entrainment.b: 0 with a = %g gives entrainment at any Richardson number; need b in (0, 10]", k.Entrainment.A)
 	}

@@ -32,6 +32,6 @@ func Example() {
 	fmt.Printf("turbidity maximum: %.1f km from Quellmouth, %.0f mg/L, bottom salinity %.0f PSU\n", d.ETMPosition/1e3, d.ETMPeak*1e3, d.ETMBottomSalinity)
 	// Output:
 	// regime: partially mixed (Fr_f = 0.018, M = 0.69)
-	// salt intrusion (2 PSU at the bed): 24 km
-	// turbidity maximum: 20.5 km from Quellmouth, 93 mg/L, bottom salinity 6 PSU
+	// salt intrusion (2 PSU at the bed): 30 km
+	// turbidity maximum: 18.5 km from Quellmouth, 88 mg/L, bottom salinity 15 PSU
 }

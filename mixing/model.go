@@ -7,7 +7,13 @@ import (
 
 // Numerical choices (see doc.go, "Numerics").
 const (
-	relaxTime  = 3600.0 // s, lower-layer volume relaxes to the exchange-flow interface on this time scale
+	// relaxTime (s): the lower-layer volume relaxes to the interface of the
+	// tidally averaged exchange flow on the time scale over which that flow is
+	// defined (the M2 filter of its salinity gradient). Faster relaxation (one
+	// hour was used before) imposes the tidal-mean interface within the tide
+	// and, once vertical mixing is weak, drives along-channel waves of
+	// stratification at the tidal-excursion scale (doc.go, Numerics).
+	relaxTime  = PeriodM2
 	filterTime = PeriodM2
 	// exchangeInterval is how often (s) the residual exchange flow is
 	// recomputed; it follows a salinity field filtered over an M2 period and the
@@ -36,6 +42,10 @@ type Model struct {
 	bed    [][]float64         // [class][cell] kg m⁻²
 	sfilt  []float64           // tidally filtered depth-mean salinity
 	dsfilt []float64           // tidally filtered lower − upper salinity
+	ri     []float64           // cells, bulk layer Richardson number Ri_b (see richardson)
+	damp   []float64           // cells, stratification damping factor f(Ri_b) of tidal K_S
+	cum    []float64           // cells+1, prefix sums of the filtered stratification
+	sint   []float64           // cells+1, prefix integrals of sfilt (sbarIntegral)
 
 	// per-step work
 	q2res, f2f, kh []float64         // faces
@@ -136,6 +146,7 @@ func New(cfg Config, settling Settling) (*Model, error) {
 		m.halfc[k], m.dcoef[k], m.inv[k] = mk(n+1), mk(n+1), mk(n)
 	}
 	m.sfilt, m.dsfilt = mk(n), mk(n)
+	m.ri, m.damp, m.cum, m.sint = mk(n), mk(n), mk(n+1), mk(n+1)
 	m.q2res, m.f2f, m.kh, m.phi2 = mk(n+1), mk(n+1), mk(n+1), mk(n+1)
 	m.w, m.umean, m.taub, m.xv = mk(n), mk(n), mk(n), mk(n)
 	m.flux, m.mass = mk(n+1), mk(Layers*n)
@@ -235,6 +246,7 @@ func (m *Model) exchange() {
 	beta := cl.HalineContraction
 	env := m.envelope(m.t)
 	fmin := cl.MinLayerFraction
+	m.sbarIntegral()
 	for j := 0; j <= m.n; j++ {
 		bf, hf := m.bf[j], m.hf[j]
 		ut := m.tidalVelocity(j, env)
@@ -243,8 +255,13 @@ func (m *Model) exchange() {
 		if j < m.n {
 			// gradient over one peak-to-peak tidal excursion 2U_T/ω (at least a cell)
 			half := math.Max(ut/omegaM2, 0.5*m.dx)
-			xa, xb := m.xf[j]-half, m.xf[j]+half
-			sx = (m.sbarAt(xa) - m.sbarAt(xb)) / (xb - xa)
+			// as the difference of the means over the seaward and the
+			// landward half excursion: a two-point difference across the
+			// excursion responds fully to a 2Δx mode and, with weak
+			// vertical mixing, lets one grow (doc.go, Numerics)
+			x := m.xf[j]
+			i0, i1, i2 := m.sbarBelow(x-half), m.sbarBelow(x), m.sbarBelow(x+half)
+			sx = ((i1 - i0) - (i2 - i1)) / (half * half)
 		}
 		if sx < 0 {
 			sx = 0
@@ -279,27 +296,42 @@ func (m *Model) exchange() {
 		m.phi2[j] = math.Exp(8.0 / 7 * math.Log(1+zi))
 		m.kh[j] = cl.DispersionCoeff * ut * bf
 	}
+	m.richardson(env)
 }
 
-// sbarAt interpolates the filtered depth-mean salinity linearly between cell
-// centres; seaward of the first centre it runs to the ocean value one cell
-// length outside the mouth, landward of the last it is constant.
-func (m *Model) sbarAt(x float64) float64 {
-	n := m.n
-	f := x/m.dx - 0.5 // fractional cell index
-	switch {
-	case f >= float64(n-1):
-		return m.sfilt[n-1]
-	case f < 0:
-		// ghost sea cell at index −1
-		if f <= -1 {
-			return m.cfg.Ocean.Salinity
-		}
-		return m.sfilt[0] + f*(m.sfilt[0]-m.cfg.Ocean.Salinity)
+// sbarIntegral sets the prefix integrals of the piecewise-linear filtered
+// depth-mean salinity between cell centres (sint[k+1] = ∫ from the ghost sea
+// node at −Δx/2 to centre k), for sbarBelow.
+func (m *Model) sbarIntegral() {
+	prev := m.cfg.Ocean.Salinity
+	m.sint[0] = 0
+	for k := 0; k < m.n; k++ {
+		m.sint[k+1] = m.sint[k] + 0.5*m.dx*(prev+m.sfilt[k])
+		prev = m.sfilt[k]
 	}
-	i := int(f)
-	r := f - float64(i)
-	return m.sfilt[i] + r*(m.sfilt[i+1]-m.sfilt[i])
+}
+
+// sbarBelow returns ∫ s̄ dx from the ghost sea node (x = −Δx/2) to x of the
+// filtered depth-mean salinity interpolated linearly between cell centres;
+// seaward of the ghost node s̄ is the ocean value, landward of the last centre
+// it is constant.
+func (m *Model) sbarBelow(x float64) float64 {
+	n := m.n
+	f := x/m.dx - 0.5 // fractional cell index; the ghost node is at −1
+	switch {
+	case f <= -1:
+		return (f + 1) * m.dx * m.cfg.Ocean.Salinity
+	case f >= float64(n-1):
+		return m.sint[n] + (f-float64(n-1))*m.dx*m.sfilt[n-1]
+	}
+	k := int(math.Floor(f)) // −1 … n−2
+	r := f - float64(k)
+	v0 := m.cfg.Ocean.Salinity
+	if k >= 0 {
+		v0 = m.sfilt[k]
+	}
+	v1 := m.sfilt[k+1]
+	return m.sint[k+1] + r*m.dx*(v0+0.5*r*(v1-v0))
 }
 
 // transports sets the face transports per layer for a tidal elevation rate
@@ -356,7 +388,7 @@ func (m *Model) kinematics() {
 		// doc.go), plus, with Closure.Entrainment set, entrainment by the residual
 		// exchange-flow shear Δu_r, w_e = E(Ri)·Δu_r (Turner form) with the layer
 		// Richardson number Ri = g'·h1·h2/(H·Δu_r²).
-		ks := cl.MixingCoefficient*cd*0.5*math.Pi*math.Abs(ub)*htot + cl.BackgroundMixing
+		ks := cl.MixingCoefficient*cd*0.5*math.Pi*math.Abs(ub)*htot*m.damp[i] + cl.BackgroundMixing
 		xv := ks / (0.5 * htot)
 		// residual (exchange-flow) shear between the layers
 		q2 := 0.5 * (m.q2res[i] + m.q2res[i+1])
