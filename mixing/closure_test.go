@@ -226,7 +226,8 @@ func TestValidate(t *testing.T) {
 			c.Ocean.Salinity = 50
 			c.Sediment = []Class{{CriticalErosion: 0}}
 			c.Tide.M2Velocity = 1
-		}, []string{"geometry.cells: 1 is outside [4, 5000]", "ocean.salinity: 50 PSU is outside (0, 42] PSU",
+			c.Closure.Damping.Alpha = -1
+		}, []string{"closure.damping.alpha: -1 is outside [0, 100]", "geometry.cells: 1 is outside [4, 5000]", "ocean.salinity: 50 PSU is outside (0, 42] PSU",
 			"sediment[0].critical_erosion: 0 Pa is outside (0, 100] Pa", "not both"}},
 	}
 	for _, c := range cases {

@@ -52,8 +52,9 @@
 // MacCready (2004, J. Phys. Oceanogr. 34:1296),
 // u(ζ) = U_R·(3/2 − (3/2)ζ²) + u_E·(1 − 9ζ² − 8ζ³), u_E = g·β·s_x·H³/(48·K_M),
 // driven by the along-channel gradient s_x of the depth-mean salinity
-// filtered over one M2 period and taken across one peak-to-peak tidal
-// excursion 2U_T/ω. The interface is the level of flow reversal, and the
+// filtered over one M2 period and averaged over the tidal excursion: s_x is
+// the difference of its means over the half excursions U_T/ω seaward and
+// landward of the face, divided by U_T/ω (at least half a cell). The interface is the level of flow reversal, and the
 // lower layer carries the landward part of the profile, Q_in. K_M is tidal
 // mixing a·C_D·U_T·H (U_T the spring–neap envelope of the tidal current) plus
 // background K₀ plus an interfacial-friction viscosity K_i = c_K·H²·√(c_i·g·β·s_x)
@@ -71,14 +72,32 @@
 //
 // Continuity. Each layer's volume changes by the face transports and by the
 // vertical transport W between the layers; W relaxes the lower layer to the
-// exchange-flow interface within one hour. Water volumes are state variables,
+// exchange-flow interface over one M2 period (see Numerics). Water volumes are state variables,
 // so the water budget closes to round-off.
 //
 // Vertical exchange. The layers exchange salt, heat and sediment at the
-// velocity K_S/(H/2) (DESIGN) with K_S = a·C_D·(π/2)·|u_b(t)|·H + K₀, whose
-// tidal mean equals K_M's tidal part (K_S = K_M as in MacCready 2004), u_b the
-// lower-layer velocity: mixing follows |u(t)| through the tide and vanishes
-// under an arrested wedge. Closure.Entrainment (e.g. DefaultTurner) adds
+// velocity K_S/(H/2) (DESIGN) with
+//
+//	K_S = a·C_D·(π/2)·|u_b(t)|·H·f(Ri_b) + K₀,  f(Ri) = (1 + 3.33·Ri)^(−3/2),
+//
+// u_b the lower-layer velocity, so that mixing follows |u(t)| through the tide
+// and vanishes under an arrested wedge; without stratification its tidal mean
+// is K_M's tidal part (K_S = K_M as in MacCready 2004). f is the scalar
+// damping function of Munk & Anderson (1948, J. Mar. Res. 7:276; f(0.25) =
+// 0.403, f(1) = 0.111), Closure.Damping (PacanowskiPhilander gives
+// (1 + 5Ri)^(−3), the zero value none). Ri_b is the bulk layer Richardson
+// number of the tidal flow (LayerRichardson), Ri_b = g·β·⟨Δs⟩·H/U_T², with
+// U_T the spring–neap amplitude of the section-mean tidal current, not the
+// instantaneous velocity (which makes Ri infinite at every slack water), and
+// ⟨Δs⟩ the lower-minus-upper salinity filtered over one M2 period and
+// averaged over the cells within one tidal excursion U_T/ω either side. It is
+// the gradient Richardson number of a linear profile with N² = g'/H and shear
+// U_T/H; the Munk–Anderson function was fitted to gradient Richardson numbers,
+// so its use with Ri_b is an estimate (validity: 0 ≤ Ri_b < ∞; f → 0 as
+// Ri_b → ∞, where K₀ remains as the floor; Ri_b = ∞ for a stratified column
+// with no tide). Ri_b and f are updated with the exchange flow every 15
+// minutes from the filtered fields, so the damping lags the stratification by
+// about an M2 period. Closure.Entrainment (e.g. DefaultTurner) adds
 // interfacial entrainment w_e = E(Ri)·Δu_r by the residual exchange shear,
 // E = (A − B·Ri)/(1 + C·Ri), Turner (1986, J. Fluid Mech. 173:431):
 // A = 0.08, B = 0.1, C = 5, zero above Ri = 0.8, with the layer Richardson
@@ -109,7 +128,8 @@
 // upper layer; ν(T) from the Vogel equation (within 2.5 % over 0–40 °C).
 //
 // Journal details given here for Hansen & Rattray, Knudsen, Armi & Farmer,
-// Sweby, van Leer, Turner, Munk & Anderson, Phillips, Simpson et al.,
+// Sweby, van Leer, Turner, Munk & Anderson (and its coefficients),
+// Pacanowski & Philander, Phillips, Simpson et al.,
 // Partheniades and Krone, the Vogel constants and the 0.035 dispersion
 // coefficient are from memory; the other formulas and constants were read in
 // the sources collected for the project (research note on estuaries and flocs).
@@ -135,6 +155,7 @@
 //	β     haline contraction              7.7e-4 PSU⁻¹
 //	c_i   interfacial drag                3e-4     Sørgard, Martinsen & Aas 1990 (1.1e-4 to 4.2e-4)
 //	fmin  smallest lower-layer fraction   0.1      numerical choice
+//	f     Richardson damping of K_S       (1 + 3.33Ri)^(−3/2)  Munk & Anderson 1948 (from memory) via MunkAnderson
 //	E     entrainment law                 off      Turner 1986 A, B, C = 0.08, 0.1, 5 via DefaultTurner
 //	Erosion rate, critical stresses and bed inventory are per class, no
 //	default: Wadden Sea mudflats give τ_ce = 0.11–0.18 Pa and M = 5e-5 to
@@ -149,6 +170,24 @@
 // implicit and impose no limit. The exchange flow is recomputed every 15
 // minutes of model time. Step allocates nothing.
 //
+// Along-channel smoothness. Two discretisation choices are needed for a
+// smooth salinity field once vertical mixing is weak (stratification
+// damping, or a small a), and both were found by testing, not tuned:
+// (1) the exchange-driving gradient is a difference of excursion means, not
+// a two-point difference across the excursion, which responds fully to a
+// 2Δx (odd–even) salinity mode: alternating Q_in makes alternating up- and
+// downwelling W, which refreshes the lower layer in every other cell and so
+// feeds the mode; (2) the interface relaxes over an M2 period, the averaging
+// time of the exchange flow it follows; relaxing within one hour drove waves of
+// stratification at the tidal-excursion scale that drifted along the channel.
+// With these, damping of K_S by the filtered, excursion-averaged Ri_b and
+// even by the instantaneous Ri = g'H/u_b² gives no steps in the cases tested
+// (TestNoGridScaleOscillation: every feature spans at least 1.5 cells).
+// The layering mechanism of Phillips (1972, Deep-Sea Res. 19:79) remains
+// possible in principle: the damped buoyancy flux Ri·f(Ri) falls beyond
+// Ri = 1/(α(n − 1)) ≈ 0.6 (PeakFluxRichardson), and the excursion average
+// of Ri_b keeps any such structure wider than a tidal excursion.
+//
 // # Validity
 //
 // Width-averaged and two-layer: no lateral circulation, no continuous
@@ -162,15 +201,14 @@
 //
 // # Departures from the DESIGN reference formulation
 //
-//   - Tidal mixing is not reduced by a bulk Richardson number. Stratification
-//     damping of K_S (Munk & Anderson 1948 form) makes the layer flux of salt
-//     decrease with stratification beyond Ri ≈ 0.6, and the model then breaks
-//     into along-channel salinity steps (the layering instability of Phillips
-//     1972, Deep-Sea Res. 19:79); the Hansen–Rattray/MacCready closure it feeds
-//     has K_S = K_M independent of stratification. Bulk-Richardson-number
-//     entrainment (Turner 1986) is available as Closure.Entrainment; with the
-//     exchange-flow shear of this closure it nearly homogenises partially
-//     mixed estuaries, so it is off by default.
+//   - Only K_S is damped by the bulk Richardson number; the exchange closure's
+//     K_M is not. The Hansen–Rattray profile then has K_M/K_S = 1/f ≥ 1, a
+//     turbulent Prandtl number above one as Munk & Anderson's own pair gives
+//     (their momentum function (1 + 10Ri)^(−1/2) falls more slowly than the
+//     scalar one); damping K_M as well is not done here.
+//   - Bulk-Richardson-number entrainment (Turner 1986) is available as
+//     Closure.Entrainment; with the exchange-flow shear of this closure it
+//     nearly homogenises partially mixed estuaries, so it is off by default.
 //   - Bed stress and tidal mixing use the lower-layer velocity, so that an
 //     arrested wedge is not stirred by the river flowing over it.
 //   - An interfacial-friction viscosity joins the tidal K_M so that one closure

@@ -383,9 +383,10 @@ func (m *Model) kinematics() {
 		du := math.Abs(m.u[0][i] - m.u[1][i])
 		e1 += cl.InterfaceFriction * du * du * du / hk[0]
 		// Vertical exchange velocity between the layers: tidal mixing
-		// K_S/(H/2) with K_S = a·C_D·(π/2)|u|·H + K₀ (tidal mean a·C_D·U_T·H,
-		// equal to K_M as in MacCready 2004; not damped by stratification, see
-		// doc.go), plus, with Closure.Entrainment set, entrainment by the residual
+		// K_S/(H/2) with K_S = a·C_D·(π/2)|u|·H·f(Ri_b) + K₀ (unstratified
+		// tidal mean a·C_D·U_T·H, equal to K_M as in MacCready 2004; f the
+		// Munk–Anderson damping of the bulk layer Richardson number set by
+		// richardson, see doc.go), plus, with Closure.Entrainment set, entrainment by the residual
 		// exchange-flow shear Δu_r, w_e = E(Ri)·Δu_r (Turner form) with the layer
 		// Richardson number Ri = g'·h1·h2/(H·Δu_r²).
 		ks := cl.MixingCoefficient*cd*0.5*math.Pi*math.Abs(ub)*htot*m.damp[i] + cl.BackgroundMixing
