@@ -25,26 +25,35 @@ func BenchmarkDemo(b *testing.B) {
 // BenchmarkFill is the cheap per-point part: water, CDOM and every
 // population's IOPs at one station, layer and time.
 func BenchmarkFill(b *testing.B) {
-	r := runSmall(&testing.T{})
-	s := r.Scenario
-	pops, err := buildPopulations(context.Background(), s, Options{Kernel: DefaultKernel}, referenceWater(s), func(string, ...any) {})
+	s := smallDemo(b)
+	r0, err := Run(context.Background(), s, Options{})
 	if err != nil {
 		b.Fatal(err)
 	}
-	opt, _ := Options{}.normalise()
-	w, err := r.newWorker(pops, opt)
-	if err != nil {
-		b.Fatal(err)
-	}
-	for i, po := range pops {
-		w.mass[i], w.flocD[i] = 0.05, 80e-6
-		if po.isFloc {
-			w.flocD[i] = 80e-6
-		}
-	}
+	r, pops, w := fillWorker(b, r0)
 	b.ReportAllocs()
 	for b.Loop() {
 		if err := w.fill(r, pops, 12, 11.5); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// BenchmarkWriteOutputs writes every product of the demo (CSV tables at
+// the stations and at every cell, NetCDF, figures, summary).
+func BenchmarkWriteOutputs(b *testing.B) {
+	s, err := demo.Scenario()
+	if err != nil {
+		b.Fatal(err)
+	}
+	r, err := Run(context.Background(), s, Options{})
+	if err != nil {
+		b.Fatal(err)
+	}
+	dir := b.TempDir()
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := r.WriteOutputs(dir); err != nil {
 			b.Fatal(err)
 		}
 	}

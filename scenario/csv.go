@@ -4,8 +4,6 @@ import (
 	"bytes"
 	"fmt"
 	"io"
-	"os"
-	"path/filepath"
 
 	"github.com/murk-optics/murk/mixing"
 	"github.com/murk-optics/murk/scenario/iop"
@@ -22,14 +20,27 @@ func layerName(l int) string {
 	return "lower"
 }
 
-// SectionTable is the along-channel section: one row per output time,
-// station and layer with the water state and the bulk IOPs at the
-// reference wavelength (nearest 550 nm), totals and particles.
+// SectionTable is the along-channel section at every model cell: one row
+// per output time, cell centre and layer with the water state and the
+// bulk IOPs at the reference wavelength (nearest 550 nm), totals and
+// particles.
 func (r *Result) SectionTable() *table.Table { return r.sectionTable(0, len(r.Times)) }
 
+// StationTable is the same at the stations.
+func (r *Result) StationTable() *table.Table { return r.stationTable(0, len(r.Times)) }
+
 func (r *Result) sectionTable(t0, t1 int) *table.Table {
+	return r.pointsTable(&r.Section, "section along the channel at every model cell", t0, t1)
+}
+
+func (r *Result) stationTable(t0, t1 int) *table.Table {
+	return r.pointsTable(&r.Points, "state and bulk optics at the stations", t0, t1)
+}
+
+// pointsTable tabulates the points ps at output times t0 to t1.
+func (r *Result) pointsTable(ps *Points, title string, t0, t1 int) *table.Table {
 	wref := refWavelength(r.Wavelengths)
-	t := &table.Table{Title: fmt.Sprintf("section along the channel (IOPs at %.0f nm)", r.Wavelengths[wref]*1e9)}
+	t := &table.Table{Title: fmt.Sprintf("%s (IOPs at %.0f nm)", title, r.Wavelengths[wref]*1e9)}
 	t.Columns = []table.Column{
 		{Name: "time", Unit: "h"}, {Name: "distance", Unit: "km"}, {Name: "layer"},
 		{Name: "thickness", Unit: "m"}, {Name: "salinity", Unit: "1"}, {Name: "temperature", Unit: "degC"},
@@ -50,25 +61,23 @@ func (r *Result) sectionTable(t0, t1 int) *table.Table {
 		table.Column{Name: "bbp_over_bp", Unit: "1"}, table.Column{Name: "bbp_slope", Unit: "1"},
 		table.Column{Name: "cp_slope", Unit: "1"},
 	)
+	nw := r.NW()
 	for ti := t0; ti < t1; ti++ {
-		for j := range r.Stations {
+		for j, x := range ps.Distance {
 			for l := 0; l < mixing.Layers; l++ {
-				p := r.Point(ti, j, l)
-				row := []any{r.Times[ti] / 3600, r.Stations[j] / 1e3, layerName(l), r.Thickness[p], r.Salinity[p], r.Temperature[p], r.ShearRate[p]}
+				p := ps.Point(ti, j, l)
+				row := []any{r.Times[ti] / 3600, x / 1e3, layerName(l), ps.Thickness[p], ps.Salinity[p], ps.Temperature[p], ps.ShearRate[p]}
 				for c := range r.Classes {
-					row = append(row, r.Concentration[p*r.NC()+c]*1e3)
+					row = append(row, ps.Concentration[p*r.NC()+c]*1e3)
 				}
 				for i := range r.Scenario.Mixture.Populations {
 					if r.hasFlocs(i) {
-						row = append(row, r.FlocDiameter[p*r.NP()+i]*1e6)
+						row = append(row, ps.FlocDiameter[p*r.NP()+i]*1e6)
 					}
 				}
-				a := r.Sum(iop.Absorption, p, wref, nil)
-				b := r.Sum(iop.Scattering, p, wref, nil)
-				bb := r.Sum(iop.Backscattering, p, wref, nil)
-				bp := r.Sum(iop.Scattering, p, wref, Particles)
-				bbp := r.Sum(iop.Backscattering, p, wref, Particles)
-				row = append(row, a, b, bb, a+b, ratio(bb, b), bbp, ratio(bbp, bp), r.ParticleBbSlope[p], r.ParticleCSlope[p])
+				q := p*nw + wref
+				a, b, bb := ps.TotalA[q], ps.TotalB[q], ps.TotalBb[q]
+				row = append(row, a, b, bb, a+b, ratio(bb, b), ps.Bbp[q], ratio(ps.Bbp[q], ps.Bp[q]), ps.ParticleBbSlope[p], ps.ParticleCSlope[p])
 				t.Add(row...)
 			}
 		}
@@ -98,37 +107,54 @@ func (r *Result) SpectraTable() *table.Table { return r.spectraTable(0, len(r.Ti
 
 func (r *Result) spectraTable(t0, t1 int) *table.Table {
 	t := &table.Table{Title: "spectra at stations"}
-	t.Columns = []table.Column{{Name: "time", Unit: "h"}, {Name: "distance", Unit: "km"}, {Name: "layer"}, {Name: "wavelength", Unit: "nm"}}
-	for _, c := range r.Components {
-		t.Columns = append(t.Columns, table.Column{Name: "a_" + c.Name, Unit: "m-1"})
-		if c.Kind == iop.Water || c.Kind == iop.Particles {
-			t.Columns = append(t.Columns, table.Column{Name: "b_" + c.Name, Unit: "m-1"}, table.Column{Name: "bb_" + c.Name, Unit: "m-1"})
-		}
-	}
-	t.Columns = append(t.Columns, table.Column{Name: "a", Unit: "m-1"}, table.Column{Name: "b", Unit: "m-1"},
-		table.Column{Name: "bb", Unit: "m-1"}, table.Column{Name: "c", Unit: "m-1"}, table.Column{Name: "bb_over_b", Unit: "1"})
+	t.Columns = append([]table.Column{{Name: "time", Unit: "h"}, {Name: "distance", Unit: "km"}, {Name: "layer"}, {Name: "wavelength", Unit: "nm"}},
+		spectrumColumns(r.Components)...)
 	for ti := t0; ti < t1; ti++ {
 		for j := range r.Stations {
 			for l := 0; l < mixing.Layers; l++ {
 				p := r.Point(ti, j, l)
 				for w, lam := range r.Wavelengths {
 					row := []any{r.Times[ti] / 3600, r.Stations[j] / 1e3, layerName(l), lam * 1e9}
-					for k, c := range r.Components {
-						row = append(row, r.Value(iop.Absorption, p, k, w))
-						if c.Kind == iop.Water || c.Kind == iop.Particles {
-							row = append(row, r.Value(iop.Scattering, p, k, w), r.Value(iop.Backscattering, p, k, w))
-						}
-					}
-					a := r.Sum(iop.Absorption, p, w, nil)
-					b := r.Sum(iop.Scattering, p, w, nil)
-					bb := r.Sum(iop.Backscattering, p, w, nil)
-					row = append(row, a, b, bb, a+b, ratio(bb, b))
-					t.Add(row...)
+					t.Add(spectrumRow(row, r.Components, func(q iop.Quantity, k int) float64 { return r.Value(q, p, k, w) })...)
 				}
 			}
 		}
 	}
 	return t
+}
+
+// spectrumColumns are the columns of one spectrum: each component's a
+// (and b and b_b for water and particles), then the totals a, b, b_b, c
+// and b_b/b.
+func spectrumColumns(comps []Component) []table.Column {
+	var cols []table.Column
+	for _, c := range comps {
+		cols = append(cols, table.Column{Name: "a_" + c.Name, Unit: "m-1"})
+		if c.Kind == iop.Water || c.Kind == iop.Particles {
+			cols = append(cols, table.Column{Name: "b_" + c.Name, Unit: "m-1"}, table.Column{Name: "bb_" + c.Name, Unit: "m-1"})
+		}
+	}
+	return append(cols, table.Column{Name: "a", Unit: "m-1"}, table.Column{Name: "b", Unit: "m-1"},
+		table.Column{Name: "bb", Unit: "m-1"}, table.Column{Name: "c", Unit: "m-1"}, table.Column{Name: "bb_over_b", Unit: "1"})
+}
+
+// spectrumRow appends the cells of spectrumColumns at one wavelength to
+// row; v(q, k) is quantity q (absorption, scattering or backscattering)
+// of component k. Totals are summed in component order.
+func spectrumRow(row []any, comps []Component, v func(q iop.Quantity, k int) float64) []any {
+	var a, b, bb float64
+	for k, c := range comps {
+		ak := v(iop.Absorption, k)
+		row = append(row, ak)
+		a += ak
+		bk, bbk := v(iop.Scattering, k), v(iop.Backscattering, k)
+		b += bk
+		bb += bbk
+		if c.Kind == iop.Water || c.Kind == iop.Particles {
+			row = append(row, bk, bbk)
+		}
+	}
+	return append(row, a, b, bb, a+b, ratio(bb, b))
 }
 
 // ApparentTable holds what is seen from above at every station and time:
@@ -170,6 +196,7 @@ type namedTable struct {
 func (r *Result) csvTables() []namedTable {
 	t := []namedTable{
 		{"section.csv", r.sectionTable},
+		{"stations.csv", r.stationTable},
 		{"spectra.csv", r.spectraTable},
 		{"apparent.csv", r.apparentTable},
 	}
@@ -203,30 +230,3 @@ func (nt namedTable) writeCSV(w io.Writer, times int) error {
 
 // csvChunk is the number of output times per chunk of a CSV file.
 const csvChunk = 8
-
-// WriteCSV writes the CSV tables of the run into dir (created if needed)
-// and returns the paths written. Every file is written to a temporary file
-// and renamed, so an error leaves no partial file.
-func (r *Result) WriteCSV(dir string) ([]string, error) {
-	if err := os.MkdirAll(dir, 0o755); err != nil {
-		return nil, err
-	}
-	var out []string
-	for _, f := range r.csvTables() {
-		p := filepath.Join(dir, f.name)
-		if err := safefile.Write(p, func(w io.Writer) error { return f.writeCSV(w, len(r.Times)) }); err != nil {
-			return out, err
-		}
-		out = append(out, p)
-	}
-	return out, nil
-}
-
-// WriteSummaryFile writes the text summary to dir/summary.txt atomically.
-func (r *Result) WriteSummaryFile(dir string) (string, error) {
-	if err := os.MkdirAll(dir, 0o755); err != nil {
-		return "", err
-	}
-	p := filepath.Join(dir, "summary.txt")
-	return p, safefile.Write(p, r.WriteSummary)
-}

@@ -3,7 +3,6 @@ package scenario
 import (
 	"context"
 	"fmt"
-	"math"
 
 	"github.com/murk-optics/murk/floc"
 	"github.com/murk-optics/murk/mixing"
@@ -33,21 +32,14 @@ func RunEstuary(ctx context.Context, e spec.Estuary, opt Options) (*EstuaryRun, 
 	if err != nil {
 		return nil, err
 	}
-	set := &settling{ctx: ctx, nc: len(e.Classes), interval: opt.FlocInterval, outputs: cfg.Run.Output}
-	set.constant = make([]float64, len(e.Classes))
-	for k, c := range e.Classes {
-		if c.Settling != spec.SettlingFloc {
-			set.constant[k] = c.SettlingVelocity
-			continue
-		}
-		set.constant[k] = math.NaN()
+	set, err := settlingFor(e, cfg, opt.FlocInterval, func(k int) (flocClass, error) {
 		m := floc.DefaultModel
-		tab, err := newWSTable(m, e.River.Temperature, e.Ocean.Temperature, 0)
-		if err != nil {
-			return nil, err
-		}
-		set.flocs = append(set.flocs, flocClass{class: k, model: m, dynamic: true, d0: 10 * m.Fractal.PrimaryDiameter, table: tab})
+		return flocClass{class: k, model: m, dynamic: true, d0: 10 * m.Fractal.PrimaryDiameter}, nil
+	})
+	if err != nil {
+		return nil, err
 	}
+	set.ctx = ctx
 	if err := ctx.Err(); err != nil {
 		return nil, err
 	}

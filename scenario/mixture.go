@@ -42,13 +42,7 @@ func Mixture(ctx context.Context, m spec.Mixture, opt Options) (*MixtureResult, 
 		return nil, err
 	}
 	r := &Result{Scenario: s, Wavelengths: m.Optics.Wavelengths, Angles: m.Optics.Angles}
-	r.Components = []Component{{Name: "water", Kind: iop.Water}, {Name: "cdom", Kind: iop.Dissolved}}
-	if pigmentApplies(s) {
-		r.Components = append(r.Components, Component{Name: "pigment", Kind: iop.Pigment})
-	}
-	for i := range m.Populations {
-		r.Components = append(r.Components, Component{Name: m.Populations[i].Name, Kind: iop.Particles, Population: &m.Populations[i]})
-	}
+	r.Components = components(r.Scenario)
 	w, err := r.newWorker(pops, opt)
 	if err != nil {
 		return nil, err
@@ -69,27 +63,9 @@ func Mixture(ctx context.Context, m spec.Mixture, opt Options) (*MixtureResult, 
 func (mr *MixtureResult) Table() *table.Table {
 	sp := mr.Spectra
 	t := &table.Table{Title: fmt.Sprintf("IOP spectra of the sample (salinity %g, %g °C)", mr.Mixture.Water.Salinity, mr.Mixture.Water.Temperature)}
-	t.Columns = []table.Column{{Name: "wavelength", Unit: "nm"}}
-	for _, c := range mr.Components {
-		t.Columns = append(t.Columns, table.Column{Name: "a_" + c.Name, Unit: "m-1"})
-		if c.Kind == iop.Water || c.Kind == iop.Particles {
-			t.Columns = append(t.Columns, table.Column{Name: "b_" + c.Name, Unit: "m-1"}, table.Column{Name: "bb_" + c.Name, Unit: "m-1"})
-		}
-	}
-	t.Columns = append(t.Columns, table.Column{Name: "a", Unit: "m-1"}, table.Column{Name: "b", Unit: "m-1"},
-		table.Column{Name: "bb", Unit: "m-1"}, table.Column{Name: "c", Unit: "m-1"}, table.Column{Name: "bb_over_b", Unit: "1"})
-	total := sp.Total()
+	t.Columns = append([]table.Column{{Name: "wavelength", Unit: "nm"}}, spectrumColumns(mr.Components)...)
 	for w, lam := range mr.Wavelengths {
-		row := []any{lam * 1e9}
-		for k, c := range mr.Components {
-			cc := &sp.Components[k]
-			row = append(row, cc.A[w])
-			if c.Kind == iop.Water || c.Kind == iop.Particles {
-				row = append(row, cc.B[w], cc.Bb[w])
-			}
-		}
-		row = append(row, total.A[w], total.B[w], total.Bb[w], total.A[w]+total.B[w], ratio(total.Bb[w], total.B[w]))
-		t.Add(row...)
+		t.Add(spectrumRow([]any{lam * 1e9}, mr.Components, func(q iop.Quantity, k int) float64 { return sp.Components[k].Value(q, w) })...)
 	}
 	return t
 }

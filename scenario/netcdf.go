@@ -2,13 +2,11 @@ package scenario
 
 import (
 	"fmt"
-	"os"
-	"path/filepath"
+	"slices"
 	"strings"
 	"time"
 
 	"github.com/murk-optics/murk/mixing"
-	"github.com/murk-optics/murk/scenario/iop"
 	"github.com/murk-optics/murk/scenario/netcdf"
 	"github.com/murk-optics/murk/scenario/netcdf/cf"
 	"github.com/murk-optics/murk/scenario/spec"
@@ -26,9 +24,10 @@ const netcdfReferences = "Hansen & Rattray 1965; MacCready 2004; Geyer & MacCrea
 	"Lee et al. 2002, 2013, 2015 (reflectance, Kd, Secchi depth); CIE 1931 colour matching functions"
 
 // Dataset returns the CF definition of the run's NetCDF file: dimensions
-// time, distance (stations), layer, component, wavelength and angle;
+// time, distance (stations), cell_distance (model cell centres, for the
+// full-resolution section), layer, component, wavelength and angle;
 // variables with units, long_name and, where the CF Standard Name Table has
-// one, standard_name.
+// one, standard_name (see ncVars).
 func (r *Result) Dataset() *cf.Dataset {
 	name := r.Scenario.Name
 	if name == "" {
@@ -65,43 +64,63 @@ func (r *Result) Dataset() *cf.Dataset {
 		}
 		d.AddCoord(cf.Coord{Name: "angle", Values: deg, Units: "degree", LongName: "scattering angle"})
 	}
-	tdl := []string{"time", "distance", "layer"}
-	tdlw := append(append([]string{}, tdl...), "wavelength")
-	tdlkw := append(append([]string{}, tdl...), "component", "wavelength")
-	add := func(name string, dims []string, units, long, std string) {
-		d.AddVar(cf.Var{Name: name, Type: netcdf.Float, Dims: dims, Units: units, LongName: long, StandardName: std,
-			Extra: coordsAttr(dims)})
-	}
-	add("salinity", tdl, "1", "practical salinity of the layer", cf.StdSalinity)
-	add("temperature", tdl, "degC", "water temperature of the layer", cf.StdTemperature)
-	add("thickness", tdl, "m", "layer thickness", "")
-	add("shear_rate", tdl, "s-1", "turbulence shear rate G = sqrt(epsilon/nu)", "")
-	add("ssc", tdl, "kg m-3", "suspended sediment concentration, all classes", cf.StdSuspendedMatter)
-	for i, p := range r.Scenario.Mixture.Populations {
-		if r.hasFlocs(i) {
-			add("floc_d50_"+p.Name, tdl, "m", "median diameter of the floc mass of population "+p.Name, "")
+	if len(r.Section.Distance) > 0 {
+		km := make([]float64, len(r.Section.Distance))
+		for i, x := range r.Section.Distance {
+			km[i] = x / 1e3
 		}
+		d.AddCoord(cf.Coord{Name: "cell_distance", Values: km, Units: "km", LongName: "distance of the model cell centre along the channel from the mouth (landward positive)", Axis: "X"})
 	}
-	add("a", tdlw, "m-1", "absorption coefficient, total", cf.StdAbsorption)
-	add("b", tdlw, "m-1", "scattering coefficient, total", cf.StdScattering)
-	add("bb", tdlw, "m-1", "backscattering coefficient, total", cf.StdBackscattering)
-	add("c", tdlw, "m-1", "beam attenuation coefficient, total", cf.StdBeamAttenuation)
-	add("bb_ratio", tdlw, "1", "backscattering ratio bb/b, total", "")
-	add("component_a", tdlkw, "m-1", "absorption coefficient of each component", "")
-	add("component_b", tdlkw, "m-1", "scattering coefficient of each component", "")
-	add("component_bb", tdlkw, "m-1", "backscattering coefficient of each component", "")
+	for _, v := range r.ncVars() {
+		d.AddVar(cf.Var{Name: v.name, Type: netcdf.Float, Dims: v.dims, Units: v.units, LongName: v.long, StandardName: v.std,
+			Extra: coordsAttr(v.dims)})
+	}
+	return d
+}
+
+// ncVar is one data variable of the NetCDF file with the function that
+// computes its values (called only while the file is written, one
+// variable at a time).
+type ncVar struct {
+	name, units, long, std string
+	dims                   []string
+	data                   func() []float64
+}
+
+// ncVars lists the file's data variables in file order: the state and
+// bulk optics at the stations (dimension distance), the same at every model
+// cell (dimension cell_distance, names prefixed section_), the components
+// and VSF and what is seen at the stations, and the instruments.
+func (r *Result) ncVars() []ncVar {
+	var vs []ncVar
+	add := func(name string, dims []string, units, long, std string, data func() []float64) {
+		vs = append(vs, ncVar{name: name, dims: dims, units: units, long: long, std: std, data: data})
+	}
+	r.addPointVars(add, &r.Points, "", "distance", " at the station")
+	r.addPointVars(add, &r.Section, "section_", "cell_distance", " at the model cell centre")
+	tdlkw := []string{"time", "distance", "layer", "component", "wavelength"}
+	same := func(v []float64) func() []float64 { return func() []float64 { return v } }
+	add("component_a", tdlkw, "m-1", "absorption coefficient of each component", "", same(r.A))
+	add("component_b", tdlkw, "m-1", "scattering coefficient of each component", "", same(r.B))
+	add("component_bb", tdlkw, "m-1", "backscattering coefficient of each component", "", same(r.Bb))
 	if r.NA() > 0 {
-		add("vsf", append(append([]string{}, tdlw...), "angle"), "m-1 sr-1", "volume scattering function, total", "")
+		add("vsf", []string{"time", "distance", "layer", "wavelength", "angle"}, "m-1 sr-1", "volume scattering function, total", "", same(r.VSF))
 	}
-	add("bbp_slope", tdl, "1", "power-law spectral slope of particulate backscattering, bbp ~ wavelength^-slope", "")
-	add("cp_slope", tdl, "1", "power-law spectral slope of particulate beam attenuation", "")
 	tdw := []string{"time", "distance", "wavelength"}
-	add("rrs", tdw, "sr-1", "above-surface remote-sensing reflectance of the upper layer taken as optically deep", "")
-	add("kd", tdw, "m-1", "diffuse attenuation of downwelling irradiance", cf.StdDiffuseAttenuation)
-	add("secchi_depth", []string{"time", "distance"}, "m", "Secchi disk depth", cf.StdSecchiDepth)
-	add("hue_angle", []string{"time", "distance"}, "degree", "hue angle of the water-leaving light (CIE 1931)", "")
-	add("forel_ule", []string{"time", "distance"}, "1", "Forel-Ule colour class (1-21; 0 undefined)", "")
-	for _, in := range r.Instruments {
+	td := []string{"time", "distance"}
+	add("rrs", tdw, "sr-1", "above-surface remote-sensing reflectance of the upper layer taken as optically deep", "", same(r.Rrs))
+	add("kd", tdw, "m-1", "diffuse attenuation of downwelling irradiance", cf.StdDiffuseAttenuation, same(r.Kd))
+	add("secchi_depth", td, "m", "Secchi disk depth", cf.StdSecchiDepth, same(r.Secchi))
+	add("hue_angle", td, "degree", "hue angle of the water-leaving light (CIE 1931)", "", same(r.Hue))
+	add("forel_ule", td, "1", "Forel-Ule colour class (1-21; 0 undefined)", "", func() []float64 {
+		fu := make([]float64, len(r.ForelUle))
+		for i, v := range r.ForelUle {
+			fu[i] = float64(v)
+		}
+		return fu
+	})
+	ni := len(r.Instruments)
+	for i, in := range r.Instruments {
 		std := ""
 		switch in.Kind {
 		case spec.Transmissometer:
@@ -109,9 +128,68 @@ func (r *Result) Dataset() *cf.Dataset {
 		case spec.Backscatter:
 			std = cf.StdBackscattering
 		}
-		add("instrument_"+in.Name, tdl, instrumentUnit(in.Kind), fmt.Sprintf("simulated %s %s: %s", in.Kind, in.Name, instrumentQuantity(in.Kind)), std)
+		add("instrument_"+in.Name, []string{"time", "distance", "layer"}, instrumentUnit(in.Kind),
+			fmt.Sprintf("simulated %s %s: %s", in.Kind, in.Name, instrumentQuantity(in.Kind)), std, func() []float64 {
+				v := make([]float64, len(r.Salinity))
+				for p := range v {
+					v[p] = r.Readings[p*ni+i].Value
+				}
+				return v
+			})
 	}
-	return d
+	return vs
+}
+
+// addPointVars adds the variables of the points ps along dimension dist:
+// the water state, the bulk optics per wavelength and the slopes, named
+// prefix + name; where qualifies every long name.
+func (r *Result) addPointVars(add func(name string, dims []string, units, long, std string, data func() []float64), ps *Points, prefix, dist, where string) {
+	tdl := []string{"time", dist, "layer"}
+	tdlw := []string{"time", dist, "layer", "wavelength"}
+	same := func(v []float64) func() []float64 { return func() []float64 { return v } }
+	add(prefix+"salinity", tdl, "1", "practical salinity of the layer"+where, cf.StdSalinity, same(ps.Salinity))
+	add(prefix+"temperature", tdl, "degC", "water temperature of the layer"+where, cf.StdTemperature, same(ps.Temperature))
+	add(prefix+"thickness", tdl, "m", "layer thickness"+where, "", same(ps.Thickness))
+	add(prefix+"shear_rate", tdl, "s-1", "turbulence shear rate G = sqrt(epsilon/nu)"+where, "", same(ps.ShearRate))
+	add(prefix+"ssc", tdl, "kg m-3", "suspended sediment concentration, all classes"+where, cf.StdSuspendedMatter, func() []float64 {
+		v := make([]float64, len(ps.Salinity))
+		for p := range v {
+			v[p] = ps.SSC(p, r.NC())
+		}
+		return v
+	})
+	for i, pop := range r.Scenario.Mixture.Populations {
+		if r.hasFlocs(i) {
+			add(prefix+"floc_d50_"+pop.Name, tdl, "m", "median diameter of the floc mass of population "+pop.Name+where, "", func() []float64 {
+				v := make([]float64, len(ps.Salinity))
+				for p := range v {
+					v[p] = ps.FlocDiameter[p*r.NP()+i]
+				}
+				return v
+			})
+		}
+	}
+	add(prefix+"a", tdlw, "m-1", "absorption coefficient, total"+where, cf.StdAbsorption, same(ps.TotalA))
+	add(prefix+"b", tdlw, "m-1", "scattering coefficient, total"+where, cf.StdScattering, same(ps.TotalB))
+	add(prefix+"bb", tdlw, "m-1", "backscattering coefficient, total"+where, cf.StdBackscattering, same(ps.TotalBb))
+	add(prefix+"c", tdlw, "m-1", "beam attenuation coefficient, total"+where, cf.StdBeamAttenuation, func() []float64 {
+		v := make([]float64, len(ps.TotalA))
+		for i := range v {
+			v[i] = ps.TotalA[i] + ps.TotalB[i]
+		}
+		return v
+	})
+	add(prefix+"bb_ratio", tdlw, "1", "backscattering ratio bb/b, total"+where, "", func() []float64 {
+		v := make([]float64, len(ps.TotalB))
+		for i := range v {
+			v[i] = ratio(ps.TotalBb[i], ps.TotalB[i])
+		}
+		return v
+	})
+	add(prefix+"bp", tdlw, "m-1", "scattering coefficient of the particles"+where, "", same(ps.Bp))
+	add(prefix+"bbp", tdlw, "m-1", "backscattering coefficient of the particles"+where, "", same(ps.Bbp))
+	add(prefix+"bbp_slope", tdl, "1", "power-law spectral slope of particulate backscattering, bbp ~ wavelength^-slope"+where, "", same(ps.ParticleBbSlope))
+	add(prefix+"cp_slope", tdl, "1", "power-law spectral slope of particulate beam attenuation"+where, "", same(ps.ParticleCSlope))
 }
 
 // coordsAttr names the label variables of a variable's labelled
@@ -130,108 +208,22 @@ func coordsAttr(dims []string) []netcdf.Attr {
 }
 
 // WriteNetCDF writes the run as a CF NetCDF file at path, atomically.
+// Values are stored as floats (single precision), one variable at a time.
 func (r *Result) WriteNetCDF(path string) error {
 	d := r.Dataset()
-	np := len(r.Salinity)
-	nw := r.NW()
-	f32 := func(v []float64) []float32 {
-		out := make([]float32, len(v))
-		for i, x := range v {
-			out[i] = float32(x)
-		}
-		return out
-	}
+	vs := r.ncVars()
+	var buf []float32
 	return cf.Create(path, d, func(w *cf.Writer) error {
-		put := func(name string, v []float64) error {
-			if err := w.Float32s(name, f32(v)); err != nil {
-				return fmt.Errorf("%s: %w", name, err)
+		for _, v := range vs {
+			data := v.data()
+			buf = slices.Grow(buf[:0], len(data))[:len(data)]
+			for i, x := range data {
+				buf[i] = float32(x)
 			}
-			return nil
-		}
-		ssc := make([]float64, np)
-		for p := range ssc {
-			for c := 0; c < r.NC(); c++ {
-				ssc[p] += r.Concentration[p*r.NC()+c]
-			}
-		}
-		for _, v := range []struct {
-			n string
-			v []float64
-		}{{"salinity", r.Salinity}, {"temperature", r.Temperature}, {"thickness", r.Thickness}, {"shear_rate", r.ShearRate}, {"ssc", ssc}} {
-			if err := put(v.n, v.v); err != nil {
-				return err
-			}
-		}
-		for i, p := range r.Scenario.Mixture.Populations {
-			if !r.hasFlocs(i) {
-				continue
-			}
-			v := make([]float64, np)
-			for q := range v {
-				v[q] = r.FlocDiameter[q*r.NP()+i]
-			}
-			if err := put("floc_d50_"+p.Name, v); err != nil {
-				return err
-			}
-		}
-		tot := func(q iop.Quantity) []float64 {
-			v := make([]float64, np*nw)
-			for p := 0; p < np; p++ {
-				for l := 0; l < nw; l++ {
-					v[p*nw+l] = r.Sum(q, p, l, nil)
-				}
-			}
-			return v
-		}
-		a, b, bb, c := tot(iop.Absorption), tot(iop.Scattering), tot(iop.Backscattering), tot(iop.Attenuation)
-		ratioV := make([]float64, len(b))
-		for i := range b {
-			ratioV[i] = ratio(bb[i], b[i])
-		}
-		for _, v := range []struct {
-			n string
-			v []float64
-		}{{"a", a}, {"b", b}, {"bb", bb}, {"c", c}, {"bb_ratio", ratioV}, {"component_a", r.A}, {"component_b", r.B}, {"component_bb", r.Bb}} {
-			if err := put(v.n, v.v); err != nil {
-				return err
-			}
-		}
-		if r.NA() > 0 {
-			if err := put("vsf", r.VSF); err != nil {
-				return err
-			}
-		}
-		fu := make([]float64, len(r.ForelUle))
-		for i, v := range r.ForelUle {
-			fu[i] = float64(v)
-		}
-		for _, v := range []struct {
-			n string
-			v []float64
-		}{{"bbp_slope", r.ParticleBbSlope}, {"cp_slope", r.ParticleCSlope}, {"rrs", r.Rrs}, {"kd", r.Kd}, {"secchi_depth", r.Secchi}, {"hue_angle", r.Hue}, {"forel_ule", fu}} {
-			if err := put(v.n, v.v); err != nil {
-				return err
-			}
-		}
-		ni := len(r.Instruments)
-		for i, in := range r.Instruments {
-			v := make([]float64, np)
-			for p := range v {
-				v[p] = r.Readings[p*ni+i].Value
-			}
-			if err := put("instrument_"+in.Name, v); err != nil {
-				return err
+			if err := w.Float32s(v.name, buf); err != nil {
+				return fmt.Errorf("%s: %w", v.name, err)
 			}
 		}
 		return nil
 	})
-}
-
-// writeNetCDFInto writes dir/murk.nc.
-func (r *Result) writeNetCDFInto(dir string) (string, error) {
-	if err := os.MkdirAll(dir, 0o755); err != nil {
-		return "", err
-	}
-	p := filepath.Join(dir, "murk.nc")
-	return p, r.WriteNetCDF(p)
 }

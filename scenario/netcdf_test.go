@@ -99,8 +99,10 @@ func TestFigures(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	// 6 sections + 3 spectra + 3 envelopes, each in SVG and PNG.
-	if len(paths) != 24 {
-		t.Errorf("%d figure files, want 24: %v", len(paths), paths)
+	// 8 sections (6 optical and state quantities, floc size of the one
+	// floc population, the layer structure) + 3 spectra + 3 envelopes,
+	// each in SVG and PNG.
+	if len(paths) != 28 {
+		t.Errorf("%d figure files, want 28: %v", len(paths), paths)
 	}
 }

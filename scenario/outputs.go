@@ -1,43 +1,153 @@
 package scenario
 
+import (
+	"errors"
+	"fmt"
+	"io"
+	"os"
+	"path/filepath"
+	"runtime"
+	"sync"
+
+	"github.com/murk-optics/murk/scenario/plot"
+	"github.com/murk-optics/murk/scenario/safefile"
+)
+
+// product is one output file: its path and the function that writes it
+// there atomically.
+type product struct {
+	path  string
+	write func(path string) error
+}
+
+// atomic is a product written through safefile (temporary file, rename).
+func atomic(path string, fill func(io.Writer) error) product {
+	return product{path, func(p string) error { return safefile.Write(p, fill) }}
+}
+
 // WriteOutputs writes the products the scenario asks for (Outputs: CSV
-// tables, NetCDF, figures, the summary) into dir and
-// returns the paths written, in a fixed order (CSV, NetCDF, figures,
-// summary). A scenario that lists no
-// product gets CSV tables and the summary.
+// tables, NetCDF, figures, the summary) into dir and returns the paths
+// written, in a fixed order (CSV, NetCDF, figures, summary). A scenario
+// that lists no product gets CSV tables and the summary.
 func (r *Result) WriteOutputs(dir string) ([]string, error) {
 	o := r.Scenario.Outputs
 	if !o.CSV && !o.NetCDF && !o.Plots && !o.Summary {
 		o.CSV, o.Summary = true, true
 	}
-	var out []string
+	var ps []product
 	if o.CSV {
-		p, err := r.WriteCSV(dir)
-		out = append(out, p...)
-		if err != nil {
-			return out, err
-		}
+		ps = append(ps, r.csvProducts(dir)...)
 	}
 	if o.NetCDF {
-		p, err := r.writeNetCDFInto(dir)
-		if err != nil {
-			return out, err
-		}
-		out = append(out, p)
+		ps = append(ps, product{filepath.Join(dir, "murk.nc"), r.WriteNetCDF})
 	}
 	if o.Plots {
-		p, err := r.WritePlots(dir)
-		out = append(out, p...)
+		fp, err := r.plotProducts(dir)
 		if err != nil {
-			return out, err
+			return nil, err
 		}
+		ps = append(ps, fp...)
 	}
 	if o.Summary {
-		p, err := r.WriteSummaryFile(dir)
-		if err != nil {
-			return out, err
-		}
-		out = append(out, p)
+		ps = append(ps, r.summaryProduct(dir))
 	}
-	return out, nil
+	return writeProducts(dir, ps)
+}
+
+// writeProducts writes the products into dir (created if needed), several
+// at once on GOMAXPROCS goroutines: each file depends only on the Result,
+// so its bytes do not depend on the order or the number of workers. It
+// returns the paths written, in the order of ps, and the first error in
+// that order; every file is written atomically, so a failed product leaves
+// no partial file and the others stay.
+func writeProducts(dir string, ps []product) ([]string, error) {
+	if err := os.MkdirAll(dir, 0o755); err != nil {
+		return nil, err
+	}
+	errs := make([]error, len(ps))
+	jobs := make(chan int)
+	var wg sync.WaitGroup
+	for range min(runtime.GOMAXPROCS(0), len(ps)) {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for i := range jobs {
+				errs[i] = ps[i].write(ps[i].path)
+			}
+		}()
+	}
+	for i := range ps {
+		jobs <- i
+	}
+	close(jobs)
+	wg.Wait()
+	var out []string
+	for i, p := range ps {
+		if errs[i] == nil {
+			out = append(out, p.path)
+		}
+	}
+	return out, errors.Join(errs...)
+}
+
+// csvProducts are the CSV tables, each written in chunks of output times.
+func (r *Result) csvProducts(dir string) []product {
+	var ps []product
+	for _, f := range r.csvTables() {
+		ps = append(ps, atomic(filepath.Join(dir, f.name), func(w io.Writer) error { return f.writeCSV(w, len(r.Times)) }))
+	}
+	return ps
+}
+
+// plotProducts are the figures in the scenario's plot formats (SVG and
+// PNG by default), every figure checked before any is drawn.
+func (r *Result) plotProducts(dir string) ([]product, error) {
+	formats := r.Scenario.Outputs.PlotFormats
+	if len(formats) == 0 {
+		formats = []string{"svg", "png"}
+	}
+	var ps []product
+	for _, nf := range r.Figures() {
+		f := nf.Figure
+		if err := f.Check(); err != nil {
+			return nil, fmt.Errorf("figure %s: %w", nf.Base, err)
+		}
+		for _, fm := range formats {
+			ps = append(ps, atomic(filepath.Join(dir, nf.Base+"."+fm), func(w io.Writer) error {
+				if err := f.WriteTo(w, plot.Format(fm)); err != nil {
+					return fmt.Errorf("figure %s: %w", nf.Base, err)
+				}
+				return nil
+			}))
+		}
+	}
+	return ps, nil
+}
+
+func (r *Result) summaryProduct(dir string) product {
+	return atomic(filepath.Join(dir, "summary.txt"), r.WriteSummary)
+}
+
+// WriteCSV writes the CSV tables of the run into dir (created if needed)
+// and returns the paths written. Every file is written to a temporary file
+// and renamed, so an error leaves no partial file.
+func (r *Result) WriteCSV(dir string) ([]string, error) {
+	return writeProducts(dir, r.csvProducts(dir))
+}
+
+// WritePlots draws every figure into dir in the scenario's plot formats
+// (SVG and PNG by default) and returns the paths written.
+func (r *Result) WritePlots(dir string) ([]string, error) {
+	ps, err := r.plotProducts(dir)
+	if err != nil {
+		return nil, err
+	}
+	return writeProducts(dir, ps)
+}
+
+// WriteSummaryFile writes the text summary to dir/summary.txt atomically.
+func (r *Result) WriteSummaryFile(dir string) (string, error) {
+	p := r.summaryProduct(dir)
+	_, err := writeProducts(dir, []product{p})
+	return p.path, err
 }

@@ -2,16 +2,12 @@ package scenario
 
 import (
 	"fmt"
-	"io"
 	"math"
-	"os"
-	"path/filepath"
+	"slices"
 	"sort"
 
 	"github.com/murk-optics/murk/mixing"
-	"github.com/murk-optics/murk/scenario/iop"
 	"github.com/murk-optics/murk/scenario/plot"
-	"github.com/murk-optics/murk/scenario/safefile"
 )
 
 // stationOrder returns the station indices sorted by distance, keeping
@@ -31,175 +27,261 @@ func (r *Result) stationOrder() []int {
 	return out
 }
 
-// pointValue is one scalar of a point, for figures.
-type pointValue func(p int) float64
+// pointValue is one scalar of point p of a set of points, for figures.
+type pointValue func(ps *Points, p int) float64
 
-func (r *Result) sscAt(p int) float64 {
-	s := 0.0
-	for c := 0; c < r.NC(); c++ {
-		s += r.Concentration[p*r.NC()+c]
-	}
-	return s * 1e3 // g m⁻³
+// maxSpectraLines bounds the stations drawn in a spectra figure: more
+// lines than the plot's palette has colours cannot be told apart.
+const maxSpectraLines = 5
+
+// sectionFigure is one figure along the channel: a section quantity at
+// every model cell (tidal mean per layer over a band from the tidal minimum
+// to maximum of the upper layer), also drawn as a tidal envelope at a
+// station when envelope is true.
+type sectionFigure struct {
+	base     string
+	q        plot.Quantity
+	f        pointValue
+	log      bool
+	envelope bool
 }
 
-// Figures returns the run's figures: sections along the channel (tidal
-// mean per layer over a band from the tidal minimum to maximum of the upper
-// layer) of salinity, suspended sediment, backscattering, attenuation,
-// backscattering ratio and b_bp spectral slope; spectra of b_b, c and R_rs
-// at every station (tidal means, upper layer); and tidal envelopes of
-// suspended sediment and backscattering at the station nearest the
-// turbidity maximum. Each is keyed by its file base name.
+// Figures returns the run's figures, each keyed by its file base name:
+//   - sections along the channel at every model cell (tidal mean of each
+//     layer, with the tidal range of the upper layer shaded) of salinity,
+//     suspended sediment, backscattering, attenuation, the particulate
+//     backscattering ratio, the b_bp spectral slope, the floc size (when a
+//     population flocculates) and the layer structure (depth of the
+//     interface and of the bed);
+//   - spectra of b_b, c and R_rs at up to five stations from river to sea,
+//     always including the station nearest the turbidity maximum (tidal
+//     means, upper layer);
+//   - tidal envelopes of salinity, suspended sediment and backscattering at
+//     the station nearest the turbidity maximum.
+//
+// Quantities spanning decades (concentration, b_b, c, floc size) have
+// logarithmic axes.
 func (r *Result) Figures() []NamedFigure {
 	var figs []NamedFigure
-	order := r.stationOrder()
 	wref := refWavelength(r.Wavelengths)
 	lam := fmt.Sprintf("%.0f nm", r.Wavelengths[wref]*1e9)
-	nt := len(r.Times)
-	bbp := func(p int) float64 { return r.Sum(iop.Backscattering, p, wref, Particles) }
-	vals := []struct {
-		base string
-		q    plot.Quantity
-		f    pointValue
-		log  bool
-	}{
-		{"section_salinity", plot.Quantity{Name: "Practical salinity", Unit: "1"}, func(p int) float64 { return r.Salinity[p] }, false},
-		{"section_ssc", plot.Quantity{Name: "Suspended sediment", Unit: "g m-3"}, r.sscAt, true},
-		{"section_bb", plot.Quantity{Name: "b_b at " + lam, Unit: "m-1"}, func(p int) float64 { return r.Sum(iop.Backscattering, p, wref, nil) }, true},
-		{"section_c", plot.Quantity{Name: "c at " + lam, Unit: "m-1"}, func(p int) float64 { return r.Sum(iop.Attenuation, p, wref, nil) }, true},
-		{"section_bb_ratio", plot.Quantity{Name: "b_bp/b_p at " + lam, Unit: "1"}, func(p int) float64 {
-			return ratio(bbp(p), r.Sum(iop.Scattering, p, wref, Particles))
-		}, false},
-		{"section_bbp_slope", plot.Quantity{Name: "Slope of b_bp", Unit: "1"}, func(p int) float64 { return r.ParticleBbSlope[p] }, false},
+	nc, nw := r.NC(), r.NW()
+	vals := []sectionFigure{
+		{"section_salinity", plot.Quantity{Name: "Practical salinity", Unit: "1"}, func(ps *Points, p int) float64 { return ps.Salinity[p] }, false, true},
+		{"section_ssc", plot.Quantity{Name: "Suspended sediment", Unit: "g m-3"}, func(ps *Points, p int) float64 { return ps.SSC(p, nc) * 1e3 }, true, true},
+		{"section_bb", plot.Quantity{Name: "Backscattering b_b at " + lam, Unit: "m-1"}, func(ps *Points, p int) float64 { return ps.TotalBb[p*nw+wref] }, true, true},
+		{"section_c", plot.Quantity{Name: "Beam attenuation c at " + lam, Unit: "m-1"}, func(ps *Points, p int) float64 {
+			return ps.TotalA[p*nw+wref] + ps.TotalB[p*nw+wref]
+		}, true, false},
+		{"section_bb_ratio", plot.Quantity{Name: "Particle backscattering ratio b_bp/b_p at " + lam, Unit: "1"}, func(ps *Points, p int) float64 {
+			return ratio(ps.Bbp[p*nw+wref], ps.Bp[p*nw+wref])
+		}, false, false},
+		{"section_bbp_slope", plot.Quantity{Name: "Spectral slope γ of b_bp (b_bp ∝ λ^-γ)", Unit: "1"}, func(ps *Points, p int) float64 { return ps.ParticleBbSlope[p] }, false, false},
 	}
-	if len(order) >= 2 {
-		km := make([]float64, len(order))
-		for i, j := range order {
-			km[i] = r.Stations[j] / 1e3
+	for i, pop := range r.Scenario.Mixture.Populations {
+		if r.hasFlocs(i) {
+			vals = append(vals, sectionFigure{"section_floc_" + pop.Name, plot.Quantity{Name: "Median floc size of " + pop.Name, Unit: "µm"},
+				func(ps *Points, p int) float64 { return ps.FlocDiameter[p*r.NP()+i] * 1e6 }, true, false})
+		}
+	}
+	sec := &r.Section
+	if len(sec.Distance) >= 2 {
+		km := make([]float64, len(sec.Distance))
+		for i, x := range sec.Distance {
+			km[i] = x / 1e3
 		}
 		for _, v := range vals {
 			lines := make([]plot.Line, mixing.Layers)
-			band := &plot.Band{Label: "tidal range, upper layer", Lo: make([]float64, len(order)), Hi: make([]float64, len(order))}
-			ok := true
-			for l := 0; l < mixing.Layers; l++ {
-				lines[l] = plot.Line{Label: layerName(l) + " layer, tidal mean", Y: make([]float64, len(order))}
-				for i, j := range order {
-					lo, hi, sum := math.Inf(1), math.Inf(-1), 0.0
-					for t := 0; t < nt; t++ {
-						x := v.f(r.Point(t, j, l))
-						sum += x
-						lo, hi = min(lo, x), max(hi, x)
-					}
-					lines[l].Y[i] = sum / float64(nt)
-					if l == 0 {
-						band.Lo[i], band.Hi[i] = lo, hi
-					}
-					if v.log && lo <= 0 {
-						ok = false
-					}
+			var band *plot.Band
+			for l := range lines {
+				mean, lo, hi := r.tidalStats(sec, l, v.f)
+				lines[l] = plot.Line{Label: layerName(l) + " layer, tidal mean", Y: mean}
+				if l == 0 {
+					band = &plot.Band{Label: "upper layer, tidal range", Lo: lo, Hi: hi}
 				}
 			}
-			f := plot.Section(r.title(v.q.Name), km, v.q, lines, band)
-			f.LogY = v.log && ok
+			f := r.sectionPlot(v.q.Name, km, v.q, lines, band)
+			f.LogY = v.log && positive(band.Lo) && positive(lines[1].Y)
 			figs = append(figs, NamedFigure{v.base, f})
 		}
+		// The layer structure: depth of the interface and of the bed.
+		iface, lo, hi := r.tidalStats(sec, 0, func(ps *Points, p int) float64 { return ps.Thickness[p] })
+		bed, _, _ := r.tidalStats(sec, 0, func(ps *Points, p int) float64 { return ps.Thickness[p] + ps.Thickness[p+1] })
+		f := r.sectionPlot("Layer structure", km, plot.Quantity{Name: "Depth below the water surface", Unit: "m"},
+			[]plot.Line{{Label: "interface between the layers, tidal mean", Y: iface}, {Label: "bed (total depth), tidal mean", Y: bed}},
+			&plot.Band{Label: "interface, tidal range", Lo: lo, Hi: hi})
+		figs = append(figs, NamedFigure{"section_layers", f})
 	}
 	// Spectra at stations.
-	if r.NW() >= 2 {
-		nm := make([]float64, r.NW())
+	spec := r.spectraStations()
+	if nw >= 2 && len(spec) > 0 {
+		nm := make([]float64, nw)
 		for i, l := range r.Wavelengths {
 			nm[i] = l * 1e9
 		}
+		nt := len(r.Times)
 		for _, sp := range []struct {
 			base string
 			q    plot.Quantity
 			f    func(t, j, w int) float64
 		}{
-			{"spectra_bb", plot.Quantity{Name: "b_b", Unit: "m-1"}, func(t, j, w int) float64 { return r.Sum(iop.Backscattering, r.Point(t, j, 0), w, nil) }},
-			{"spectra_c", plot.Quantity{Name: "c", Unit: "m-1"}, func(t, j, w int) float64 { return r.Sum(iop.Attenuation, r.Point(t, j, 0), w, nil) }},
-			{"spectra_rrs", plot.Quantity{Name: "R_rs", Unit: "sr-1"}, func(t, j, w int) float64 { return r.Rrs[(t*len(r.Stations)+j)*r.NW()+w] }},
+			{"spectra_bb", plot.Quantity{Name: "Backscattering b_b", Unit: "m-1"}, func(t, j, w int) float64 { return r.TotalBb[r.Point(t, j, 0)*nw+w] }},
+			{"spectra_c", plot.Quantity{Name: "Beam attenuation c", Unit: "m-1"}, func(t, j, w int) float64 {
+				p := r.Point(t, j, 0)
+				return r.TotalA[p*nw+w] + r.TotalB[p*nw+w]
+			}},
+			{"spectra_rrs", plot.Quantity{Name: "Remote-sensing reflectance R_rs", Unit: "sr-1"}, func(t, j, w int) float64 { return r.Rrs[(t*len(r.Stations)+j)*nw+w] }},
 		} {
 			var lines []plot.Line
 			pos := true
-			for _, j := range order {
-				ln := plot.Line{Label: fmt.Sprintf("%.1f km", r.Stations[j]/1e3), Y: make([]float64, r.NW())}
+			for _, st := range spec {
+				ln := plot.Line{Label: st.label, Y: make([]float64, nw)}
 				for w := range r.Wavelengths {
 					for t := 0; t < nt; t++ {
-						ln.Y[w] += sp.f(t, j, w) / float64(nt)
-					}
-					if ln.Y[w] <= 0 {
-						pos = false
+						ln.Y[w] += sp.f(t, st.j, w) / float64(nt)
 					}
 				}
+				pos = pos && positive(ln.Y)
 				lines = append(lines, ln)
 			}
-			f := plot.Spectra(r.title(sp.q.Name+", upper layer, tidal mean"), nm, sp.q, lines)
+			f := plot.Spectra(sp.q.Name+", upper layer, tidal mean", nm, sp.q, lines)
 			f.LogY = pos && sp.base != "spectra_rrs"
 			figs = append(figs, NamedFigure{sp.base, f})
 		}
 	}
 	// Tidal envelopes at the station nearest the turbidity maximum.
-	if nt >= 2 && len(r.Stations) > 0 {
-		j := 0
-		for i, x := range r.Stations {
-			if math.Abs(x-r.Summary.ETMPosition) < math.Abs(r.Stations[j]-r.Summary.ETMPosition) {
-				j = i
-			}
-		}
+	if nt := len(r.Times); nt >= 2 && len(r.Stations) > 0 {
+		j := r.nearestStation(r.Summary.ETMPosition)
 		th := make([]float64, nt)
 		for t := range th {
-			th[t] = r.Times[t] / 3600
+			th[t] = (r.Times[t] - r.Times[0]) / 3600
 		}
-		for _, v := range vals[:3] {
+		for _, v := range vals {
+			if !v.envelope {
+				continue
+			}
 			lines := make([]plot.Line, mixing.Layers)
 			band := plot.Band{Label: "between the layers", Lo: make([]float64, nt), Hi: make([]float64, nt)}
 			for l := range lines {
 				lines[l] = plot.Line{Label: layerName(l) + " layer", Y: make([]float64, nt)}
 				for t := 0; t < nt; t++ {
-					lines[l].Y[t] = v.f(r.Point(t, j, l))
+					lines[l].Y[t] = v.f(&r.Points, r.Point(t, j, l))
 				}
 			}
 			for t := 0; t < nt; t++ {
 				band.Lo[t], band.Hi[t] = min(lines[0].Y[t], lines[1].Y[t]), max(lines[0].Y[t], lines[1].Y[t])
 			}
 			base := "envelope_" + v.base[len("section_"):]
-			figs = append(figs, NamedFigure{base, plot.Envelope(r.title(fmt.Sprintf("%s at %.1f km", v.q.Name, r.Stations[j]/1e3)), th, v.q, lines, band)})
+			f := plot.Envelope(fmt.Sprintf("%s through the tide at %.1f km (near the turbidity maximum)", v.q.Name, r.Stations[j]/1e3), th, v.q, lines, band)
+			f.X = plot.Quantity{Name: fmt.Sprintf("Time since the first output, %.1f days after the start", r.Times[0]/86400), Unit: "h"}
+			f.LogY = v.log && positive(band.Lo)
+			figs = append(figs, NamedFigure{base, f})
 		}
 	}
 	return figs
+}
+
+// sectionPlot is a section figure with the distance axis stating which
+// end is the sea.
+func (r *Result) sectionPlot(title string, km []float64, q plot.Quantity, lines []plot.Line, band *plot.Band) plot.Figure {
+	f := plot.Section(title+", along the channel", km, q, lines, band)
+	f.X = plot.Quantity{Name: "Distance from the mouth (0 = sea, landward positive)", Unit: "km"}
+	return f
+}
+
+// tidalStats returns the mean, minimum and maximum over the output times of
+// f at every position of ps in layer l.
+func (r *Result) tidalStats(ps *Points, l int, f pointValue) (mean, lo, hi []float64) {
+	n, nt := len(ps.Distance), len(r.Times)
+	mean, lo, hi = make([]float64, n), make([]float64, n), make([]float64, n)
+	for i := range mean {
+		lo[i], hi[i] = math.Inf(1), math.Inf(-1)
+		for t := 0; t < nt; t++ {
+			x := f(ps, ps.Point(t, i, l))
+			mean[i] += x
+			lo[i], hi[i] = min(lo[i], x), max(hi[i], x)
+		}
+		mean[i] /= float64(nt)
+	}
+	return mean, lo, hi
+}
+
+func positive(v []float64) bool {
+	for _, x := range v {
+		if !(x > 0) {
+			return false
+		}
+	}
+	return true
+}
+
+// nearestStation returns the index of the station nearest distance x.
+func (r *Result) nearestStation(x float64) int {
+	j := 0
+	for i, s := range r.Stations {
+		if math.Abs(s-x) < math.Abs(r.Stations[j]-x) {
+			j = i
+		}
+	}
+	return j
+}
+
+// spectraStation is one station drawn in the spectra figures.
+type spectraStation struct {
+	j     int
+	label string
+}
+
+// spectraStations picks at most maxSpectraLines stations, river first:
+// both ends and evenly spaced ones between, with the station nearest the
+// turbidity maximum always among them.
+func (r *Result) spectraStations() []spectraStation {
+	order := r.stationOrder()
+	n := len(order)
+	if n == 0 {
+		return nil
+	}
+	etm := -1
+	if len(r.Classes) > 0 {
+		etm = r.nearestStation(r.Summary.ETMPosition)
+	}
+	var pick []int
+	if n <= maxSpectraLines {
+		pick = order
+	} else {
+		for k := 0; k < maxSpectraLines; k++ {
+			pick = append(pick, order[(k*(n-1)+(maxSpectraLines-1)/2)/(maxSpectraLines-1)])
+		}
+		if etm >= 0 && !slices.Contains(pick, etm) {
+			// Replace the nearest inner pick by the turbidity maximum.
+			best := 1
+			for k := 1; k < len(pick)-1; k++ {
+				if math.Abs(r.Stations[pick[k]]-r.Stations[etm]) < math.Abs(r.Stations[pick[best]]-r.Stations[etm]) {
+					best = k
+				}
+			}
+			pick[best] = etm
+		}
+	}
+	var out []spectraStation
+	for k := len(pick) - 1; k >= 0; k-- {
+		j := pick[k]
+		label := fmt.Sprintf("%.1f km", r.Stations[j]/1e3)
+		switch {
+		case k == len(pick)-1 && n > 1:
+			label += " (river end)"
+		case k == 0 && n > 1:
+			label += " (sea end)"
+		case j == etm:
+			label += " (turbidity max.)"
+		}
+		out = append(out, spectraStation{j, label})
+	}
+	return out
 }
 
 // NamedFigure is a figure with its file base name.
 type NamedFigure struct {
 	Base   string
 	Figure plot.Figure
-}
-
-func (r *Result) title(s string) string { return s }
-
-// WritePlots draws every figure into dir in the scenario's plot formats
-// (SVG and PNG by default) and returns the paths written.
-func (r *Result) WritePlots(dir string) ([]string, error) {
-	if err := os.MkdirAll(dir, 0o755); err != nil {
-		return nil, err
-	}
-	formats := r.Scenario.Outputs.PlotFormats
-	if len(formats) == 0 {
-		formats = []string{"svg", "png"}
-	}
-	var out []string
-	for _, nf := range r.Figures() {
-		f := nf.Figure
-		if err := f.Check(); err != nil {
-			return out, fmt.Errorf("figure %s: %w", nf.Base, err)
-		}
-		for _, fm := range formats {
-			p := filepath.Join(dir, nf.Base+"."+fm)
-			err := safefile.Write(p, func(w io.Writer) error { return f.WriteTo(w, plot.Format(fm)) })
-			if err != nil {
-				return out, fmt.Errorf("figure %s: %w", nf.Base, err)
-			}
-			out = append(out, p)
-		}
-	}
-	return out, nil
 }

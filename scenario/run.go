@@ -103,17 +103,17 @@ type Result struct {
 	Components  []Component
 	Estuary     *mixing.Result // snapshots at Times
 
-	// State per point.
-	Salinity, Temperature, ShearRate, Thickness []float64 // PSU, °C, s⁻¹, m
-	Concentration                               []float64 // kg m⁻³, [p·NC + class]
-	FlocDiameter                                []float64 // median of floc mass, m, [p·NP + population]; 0 for non-floc populations
+	// Points is the state and bulk optics at the stations
+	// (Points.Distance is Stations).
+	Points
+	// Section is the same at every model cell (Section.Distance holds
+	// the cell centres), for sections along the channel at the model's
+	// full resolution; spectra per component, the VSF, apparent
+	// properties and instruments are kept at the stations only.
+	Section Points
 
-	A, B, Bb []float64 // m⁻¹ per component
-	VSF      []float64 // m⁻¹ sr⁻¹, total
-
-	// Derived per point.
-	ParticleBbSlope []float64 // γ of b_bp(λ) ∝ λ^−γ over all wavelengths, 1
-	ParticleCSlope  []float64 // γ of c_p(λ), 1
+	A, B, Bb []float64 // m⁻¹ per component, at the stations
+	VSF      []float64 // m⁻¹ sr⁻¹, total, at the stations
 
 	// Apparent properties per station and time (upper layer).
 	Rrs, Kd   []float64 // sr⁻¹ and m⁻¹, [q·NW + w]
@@ -133,15 +133,57 @@ type Result struct {
 	Summary Summary
 }
 
+// Points holds the water state and the bulk optics at a set of positions
+// along the channel, every output time and layer: point
+// p = (t·len(Distance) + i)·mixing.Layers + l.
+type Points struct {
+	Distance []float64 // from the mouth, m, strictly increasing for the section
+
+	Salinity, Temperature, ShearRate, Thickness []float64 // PSU, °C, s⁻¹, m
+	Concentration                               []float64 // kg m⁻³, [p·NC + class]
+	FlocDiameter                                []float64 // median of floc mass, m, [p·NP + population]; 0 for non-floc populations
+
+	// Totals per wavelength, m⁻¹, [p·NW + w]: all components (A, B, Bb)
+	// and the particles alone (Bp, Bbp).
+	TotalA, TotalB, TotalBb []float64
+	Bp, Bbp                 []float64
+
+	ParticleBbSlope []float64 // γ of b_bp(λ) ∝ λ^−γ over all wavelengths, 1
+	ParticleCSlope  []float64 // γ of c_p(λ), 1
+}
+
+// newPoints allocates the points of nx positions at nt times.
+func newPoints(x []float64, nt, nc, np, nw int) Points {
+	n := nt * len(x) * mixing.Layers
+	f := func(k int) []float64 { return make([]float64, k) }
+	return Points{
+		Distance: x,
+		Salinity: f(n), Temperature: f(n), ShearRate: f(n), Thickness: f(n),
+		Concentration: f(n * nc), FlocDiameter: f(n * np),
+		TotalA: f(n * nw), TotalB: f(n * nw), TotalBb: f(n * nw), Bp: f(n * nw), Bbp: f(n * nw),
+		ParticleBbSlope: f(n), ParticleCSlope: f(n),
+	}
+}
+
+// Point returns the point index of output time t, position i and layer l.
+func (ps *Points) Point(t, i, l int) int { return (t*len(ps.Distance)+i)*mixing.Layers + l }
+
+// SSC is the suspended sediment concentration of all classes at point p,
+// kg m⁻³.
+func (ps *Points) SSC(p, nc int) float64 {
+	s := 0.0
+	for c := 0; c < nc; c++ {
+		s += ps.Concentration[p*nc+c]
+	}
+	return s
+}
+
 // NW, NA, NK, NC, NP: grid sizes.
 func (r *Result) NW() int { return len(r.Wavelengths) }
 func (r *Result) NA() int { return len(r.Angles) }
 func (r *Result) NK() int { return len(r.Components) }
 func (r *Result) NC() int { return len(r.Classes) }
 func (r *Result) NP() int { return len(r.Scenario.Mixture.Populations) }
-
-// Point returns the point index of output time t, station j and layer l.
-func (r *Result) Point(t, j, l int) int { return (t*len(r.Stations)+j)*mixing.Layers + l }
 
 // Value returns quantity q of component k at point p and wavelength w.
 func (r *Result) Value(q iop.Quantity, p, k, w int) float64 {
@@ -303,14 +345,8 @@ func (opt Options) normalise() (Options, error) {
 // riding on it.
 func newSettling(s spec.Scenario, cfg mixing.Config, interval float64) (*settling, error) {
 	e := s.Estuary
-	set := &settling{nc: len(e.Classes), interval: interval, outputs: cfg.Run.Output}
-	set.constant = make([]float64, len(e.Classes))
-	for k, c := range e.Classes {
-		if c.Settling != spec.SettlingFloc {
-			set.constant[k] = c.SettlingVelocity
-			continue
-		}
-		set.constant[k] = math.NaN()
+	return settlingFor(e, cfg, interval, func(k int) (flocClass, error) {
+		c := e.Classes[k]
 		var pop *spec.Population
 		for i := range s.Mixture.Populations {
 			if p := &s.Mixture.Populations[i]; p.Kind == spec.KindFloc && p.ClassIndex == k {
@@ -319,21 +355,40 @@ func newSettling(s spec.Scenario, cfg mixing.Config, interval float64) (*settlin
 			}
 		}
 		if pop == nil {
-			return nil, fmt.Errorf("scenario: sediment class %q settles as flocs but no floc population rides on it", c.Name)
+			return flocClass{}, fmt.Errorf("scenario: sediment class %q settles as flocs but no floc population rides on it", c.Name)
 		}
 		shape, _, _, err := sizeShape(pop.Size)
 		if err != nil {
-			return nil, fmt.Errorf("population %q: %w", pop.Name, err)
+			return flocClass{}, fmt.Errorf("population %q: %w", pop.Name, err)
 		}
 		m, d0, err := flocModel(*pop, shape)
 		if err != nil {
+			return flocClass{}, err
+		}
+		return flocClass{class: k, model: m, dynamic: pop.Floc.Dynamic, d0: d0}, nil
+	})
+}
+
+// settlingFor builds the coupling of estuary e to the flocs: classes of
+// constant settling keep their velocity, and each floc class k settles as
+// the floc model flocFor(k) returns (its settling table is built here).
+func settlingFor(e spec.Estuary, cfg mixing.Config, interval float64, flocFor func(k int) (flocClass, error)) (*settling, error) {
+	set := &settling{nc: len(e.Classes), interval: interval, outputs: cfg.Run.Output}
+	set.constant = make([]float64, len(e.Classes))
+	for k, c := range e.Classes {
+		if c.Settling != spec.SettlingFloc {
+			set.constant[k] = c.SettlingVelocity
+			continue
+		}
+		set.constant[k] = math.NaN()
+		fc, err := flocFor(k)
+		if err != nil {
 			return nil, err
 		}
-		tab, err := newWSTable(m, e.River.Temperature, e.Ocean.Temperature, 0)
-		if err != nil {
+		if fc.table, err = newWSTable(fc.model, e.River.Temperature, e.Ocean.Temperature, 0); err != nil {
 			return nil, fmt.Errorf("scenario: class %q: %w", c.Name, err)
 		}
-		set.flocs = append(set.flocs, flocClass{class: k, model: m, dynamic: pop.Floc.Dynamic, d0: d0, table: tab})
+		set.flocs = append(set.flocs, fc)
 	}
 	return set, nil
 }
@@ -351,23 +406,15 @@ func newResult(s spec.Scenario, cfg mixing.Config, est *mixing.Result, pops []*p
 	if len(r.Stations) == 0 {
 		r.Stations = est.X
 	}
-	r.Components = append(r.Components, Component{Name: "water", Kind: iop.Water}, Component{Name: "cdom", Kind: iop.Dissolved})
-	if pigmentApplies(s) {
-		r.Components = append(r.Components, Component{Name: "pigment", Kind: iop.Pigment})
-	}
-	for i := range s.Mixture.Populations {
-		r.Components = append(r.Components, Component{Name: s.Mixture.Populations[i].Name, Kind: iop.Particles, Population: &s.Mixture.Populations[i]})
-	}
+	r.Components = components(s)
 	np := len(r.Times) * len(r.Stations) * mixing.Layers
 	nq := len(r.Times) * len(r.Stations)
 	nw, nk := r.NW(), r.NK()
 	f := func(n int) []float64 { return make([]float64, n) }
-	r.Salinity, r.Temperature, r.ShearRate, r.Thickness = f(np), f(np), f(np), f(np)
-	r.Concentration = f(np * r.NC())
-	r.FlocDiameter = f(np * r.NP())
+	r.Points = newPoints(r.Stations, len(r.Times), r.NC(), r.NP(), nw)
+	r.Section = newPoints(est.X, len(r.Times), r.NC(), r.NP(), nw)
 	r.A, r.B, r.Bb = f(np*nk*nw), f(np*nk*nw), f(np*nk*nw)
 	r.VSF = f(np * nw * r.NA())
-	r.ParticleBbSlope, r.ParticleCSlope = f(np), f(np)
 	r.Rrs, r.Kd = f(nq*nw), f(nq*nw)
 	r.Secchi, r.Hue = f(nq), f(nq)
 	r.ForelUle = make([]int, nq)
@@ -375,6 +422,20 @@ func newResult(s spec.Scenario, cfg mixing.Config, est *mixing.Result, pops []*p
 	r.Readings = make([]InstrumentReading, np*len(r.Instruments))
 	r.SeenFlags = make([]seen.Flag, nq)
 	return r
+}
+
+// components lists the separable components of scenario s: water, CDOM,
+// pigment (if it applies) and every population, in the population order.
+// The populations refer to s's own slice.
+func components(s spec.Scenario) []Component {
+	c := []Component{{Name: "water", Kind: iop.Water}, {Name: "cdom", Kind: iop.Dissolved}}
+	if pigmentApplies(s) {
+		c = append(c, Component{Name: "pigment", Kind: iop.Pigment})
+	}
+	for i := range s.Mixture.Populations {
+		c = append(c, Component{Name: s.Mixture.Populations[i].Name, Kind: iop.Particles, Population: &s.Mixture.Populations[i]})
+	}
+	return c
 }
 
 // pigmentApplies: chlorophyll absorbs as a separate pigment component only
@@ -393,20 +454,47 @@ func pigmentApplies(s spec.Scenario) bool {
 	return true
 }
 
-// interp returns field f (per cell) at distance x by linear interpolation
-// between cell centres, held constant beyond the first and last centre.
-func interp(xc, f []float64, x float64) float64 {
+// site is where a point sits between the cell centres xc: a field f
+// (per cell) has the value f[i]·(1−u) + f[i+1]·u there, linear
+// interpolation between centres, held constant beyond the first and last
+// centre. At a cell centre u is 0 and the value is the cell's own.
+type site struct {
+	i int
+	u float64
+}
+
+// siteAt returns the site of distance x between the centres xc, which are
+// evenly spaced (package mixing's grid).
+func siteAt(xc []float64, x float64) site {
 	n := len(xc)
-	if x <= xc[0] {
-		return f[0]
-	}
-	if x >= xc[n-1] {
-		return f[n-1]
+	switch {
+	case x <= xc[0]:
+		return site{0, 0}
+	case x >= xc[n-1]:
+		return site{n - 1, 0}
 	}
 	dx := xc[1] - xc[0]
 	i := min(int((x-xc[0])/dx), n-2)
-	u := (x - xc[i]) / dx
-	return f[i]*(1-u) + f[i+1]*u
+	return site{i, (x - xc[i]) / dx}
+}
+
+// of returns field f at the site.
+func (s site) of(f []float64) float64 {
+	if s.u == 0 {
+		return f[s.i]
+	}
+	return f[s.i]*(1-s.u) + f[s.i+1]*s.u
+}
+
+// flocOf returns the floc median diameter of layer l at the site from the
+// per-cell sizes d ([cell·Layers + layer]), interpolated in ln D: floc
+// sizes vary over orders of magnitude.
+func (s site) flocOf(d []float64, l int) float64 {
+	if s.u == 0 {
+		return d[s.i*mixing.Layers+l]
+	}
+	a, b := math.Log(d[s.i*mixing.Layers+l]), math.Log(d[(s.i+1)*mixing.Layers+l])
+	return math.Exp(a*(1-s.u) + b*s.u)
 }
 
 // worker holds the scratch space of one goroutine of the IOP evaluation.
@@ -566,61 +654,25 @@ func (r *Result) evaluate(ctx context.Context, set *settling, pops []*popOptics,
 }
 
 func (r *Result) evaluateTime(w *worker, t int, set *settling, pops []*popOptics) error {
-	snap := &r.Estuary.Snapshots[t]
 	x := r.Estuary.X
-	nc, np, nw, nk, na := r.NC(), r.NP(), r.NW(), r.NK(), r.NA()
-	ncell := len(x)
-	var sizes []float64
-	if t < len(set.sizes) {
-		sizes = set.sizes[t]
-	}
+	nk, nw, na := r.NK(), r.NW(), r.NA()
 	comps := w.spectra.Components
+	// Stations: every component, the VSF, instruments and what is seen.
 	for j, xs := range r.Stations {
+		st := siteAt(x, xs)
 		for l := 0; l < mixing.Layers; l++ {
 			p := r.Point(t, j, l)
-			sal := clampSalinity(interp(x, snap.Salinity[l], xs))
-			temp := interp(x, snap.Temperature[l], xs)
-			r.Salinity[p], r.Temperature[p] = sal, temp
-			r.ShearRate[p] = interp(x, snap.ShearRate[l], xs)
-			r.Thickness[p] = interp(x, snap.Thickness[l], xs)
-			for c := 0; c < nc; c++ {
-				r.Concentration[p*nc+c] = max(interp(x, snap.Concentration[l][c], xs), 0)
-			}
-			for i, po := range pops {
-				w.mass[i], w.flocD[i] = 0, 0
-				switch {
-				case po.uniform:
-				case po.isFloc:
-					w.mass[i] = po.fixedMass
-					if po.spec.ClassIndex >= 0 {
-						w.mass[i] = r.Concentration[p*nc+po.spec.ClassIndex] * po.spec.ClassFraction
-					}
-					d := po.d0
-					if po.flocIdx >= 0 && sizes != nil {
-						d = flocAt(x, sizes[po.flocIdx*ncell*mixing.Layers:], l, xs)
-					}
-					w.flocD[i] = d
-					r.FlocDiameter[p*np+i] = d
-				default:
-					w.mass[i] = r.Concentration[p*nc+po.spec.ClassIndex] * po.spec.ClassFraction
-				}
-			}
-			if err := w.fill(r, pops, sal, temp); err != nil {
+			if err := r.evaluatePoint(w, &r.Points, p, t, st, l, set, pops); err != nil {
 				return err
 			}
-			// Store the components.
 			for kk := range comps {
 				o := (p*nk + kk) * nw
 				copy(r.A[o:o+nw], comps[kk].A)
 				copy(r.B[o:o+nw], comps[kk].B)
 				copy(r.Bb[o:o+nw], comps[kk].Bb)
 			}
-			w.spectra.Sum(&w.total, nil)
 			copy(r.VSF[p*nw*na:(p+1)*nw*na], w.total.VSF)
-			w.spectra.Sum(&w.part, iop.OfKind(iop.Particles))
-			r.ParticleBbSlope[p] = slopeOrZero(w.spectra, &w.part, iop.Backscattering, r.Wavelengths)
-			r.ParticleCSlope[p] = slopeOrZero(w.spectra, &w.part, iop.Attenuation, r.Wavelengths)
-			if err := r.readInstruments(w, p, sal, temp); err != nil {
+			if err := r.readInstruments(w, p, r.Salinity[p], r.Temperature[p]); err != nil {
 				return err
 			}
 			if l == 0 {
@@ -630,27 +682,69 @@ func (r *Result) evaluateTime(w *worker, t int, set *settling, pops []*popOptics
 			}
 		}
 	}
+	// The section: bulk optics at every cell centre.
+	for i := range x {
+		for l := 0; l < mixing.Layers; l++ {
+			if err := r.evaluatePoint(w, &r.Section, r.Section.Point(t, i, l), t, site{i, 0}, l, set, pops); err != nil {
+				return err
+			}
+		}
+	}
 	return nil
 }
 
-// flocAt interpolates the floc median diameter of layer l between cell
-// centres (in ln D: floc sizes vary over orders of magnitude).
-func flocAt(xc, d []float64, l int, x float64) float64 {
-	n := len(xc)
-	f := func(i int) float64 { return math.Log(d[i*mixing.Layers+l]) }
-	var v float64
-	switch {
-	case x <= xc[0]:
-		v = f(0)
-	case x >= xc[n-1]:
-		v = f(n - 1)
-	default:
-		dx := xc[1] - xc[0]
-		i := min(int((x-xc[0])/dx), n-2)
-		u := (x - xc[i]) / dx
-		v = f(i)*(1-u) + f(i+1)*u
+// evaluatePoint computes point p of ps (output time t, layer l, at site
+// st of the model grid): the water state, the worker's components and
+// their total and particle sum, and the stored totals and slopes.
+func (r *Result) evaluatePoint(w *worker, ps *Points, p, t int, st site, l int, set *settling, pops []*popOptics) error {
+	snap := &r.Estuary.Snapshots[t]
+	nc, np, nw := r.NC(), r.NP(), r.NW()
+	ncell := len(r.Estuary.X)
+	var sizes []float64
+	if t < len(set.sizes) {
+		sizes = set.sizes[t]
 	}
-	return math.Exp(v)
+	sal := clampSalinity(st.of(snap.Salinity[l]))
+	temp := st.of(snap.Temperature[l])
+	ps.Salinity[p], ps.Temperature[p] = sal, temp
+	ps.ShearRate[p] = st.of(snap.ShearRate[l])
+	ps.Thickness[p] = st.of(snap.Thickness[l])
+	for c := 0; c < nc; c++ {
+		ps.Concentration[p*nc+c] = max(st.of(snap.Concentration[l][c]), 0)
+	}
+	for i, po := range pops {
+		w.mass[i], w.flocD[i] = 0, 0
+		switch {
+		case po.uniform:
+		case po.isFloc:
+			w.mass[i] = po.fixedMass
+			if po.spec.ClassIndex >= 0 {
+				w.mass[i] = ps.Concentration[p*nc+po.spec.ClassIndex] * po.spec.ClassFraction
+			}
+			d := po.d0
+			if po.flocIdx >= 0 && sizes != nil {
+				d = st.flocOf(sizes[po.flocIdx*ncell*mixing.Layers:], l)
+			}
+			w.flocD[i] = d
+			ps.FlocDiameter[p*np+i] = d
+		default:
+			w.mass[i] = ps.Concentration[p*nc+po.spec.ClassIndex] * po.spec.ClassFraction
+		}
+	}
+	if err := w.fill(r, pops, sal, temp); err != nil {
+		return err
+	}
+	w.spectra.Sum(&w.total, nil)
+	w.spectra.Sum(&w.part, iop.OfKind(iop.Particles))
+	o := p * nw
+	copy(ps.TotalA[o:o+nw], w.total.A)
+	copy(ps.TotalB[o:o+nw], w.total.B)
+	copy(ps.TotalBb[o:o+nw], w.total.Bb)
+	copy(ps.Bp[o:o+nw], w.part.B)
+	copy(ps.Bbp[o:o+nw], w.part.Bb)
+	ps.ParticleBbSlope[p] = slopeOrZero(w.spectra, &w.part, iop.Backscattering, r.Wavelengths)
+	ps.ParticleCSlope[p] = slopeOrZero(w.spectra, &w.part, iop.Attenuation, r.Wavelengths)
+	return nil
 }
 
 // setComponent sets c to scale × the population IOP in.

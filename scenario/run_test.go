@@ -8,6 +8,8 @@ import (
 	"os"
 	"path/filepath"
 	"runtime"
+	"slices"
+	"sort"
 	"testing"
 
 	"github.com/murk-optics/murk/floc"
@@ -55,6 +57,43 @@ func runSmall(t *testing.T) *Result {
 // roundOff is the relative tolerance for sums that differ only in the
 // order of floating-point additions (a few ulps of double precision).
 const roundOff = 1e-12
+
+// The section holds every model cell, with the estuary model's own
+// values there; the stations are the section interpolated linearly between
+// cell centres and held at the end cells beyond them (the contract of the
+// package doc; identities of linear interpolation).
+func TestSectionAtCells(t *testing.T) {
+	r := runSmall(t)
+	x := r.Estuary.X
+	if len(r.Section.Distance) != len(x) {
+		t.Fatalf("section has %d positions, model %d cells", len(r.Section.Distance), len(x))
+	}
+	for ti := range r.Times {
+		sn := &r.Estuary.Snapshots[ti]
+		for i := range x {
+			for l := 0; l < mixing.Layers; l++ {
+				p := r.Section.Point(ti, i, l)
+				if got, want := r.Section.Salinity[p], clampSalinity(sn.Salinity[l][i]); got != want {
+					t.Fatalf("t %d cell %d layer %d: section salinity %g, model %g", ti, i, l, got, want)
+				}
+				if got, want := r.Section.Thickness[p], sn.Thickness[l][i]; got != want {
+					t.Fatalf("t %d cell %d layer %d: section thickness %g, model %g", ti, i, l, got, want)
+				}
+			}
+		}
+		for j, xs := range r.Stations {
+			lo := max(0, min(sort.SearchFloat64s(x, xs)-1, len(x)-2))
+			u := min(max((xs-x[lo])/(x[lo+1]-x[lo]), 0), 1)
+			for l := 0; l < mixing.Layers; l++ {
+				a, b := r.Section.Thickness[r.Section.Point(ti, lo, l)], r.Section.Thickness[r.Section.Point(ti, lo+1, l)]
+				want := a*(1-u) + b*u
+				if got := r.Thickness[r.Point(ti, j, l)]; math.Abs(got-want) > roundOff*want {
+					t.Errorf("t %d station %.1f km layer %d: thickness %.15g, interpolated section %.15g", ti, xs/1e3, l, got, want)
+				}
+			}
+		}
+	}
+}
 
 // The separable components add up to the totals, c = a + b and b_b ≤ b
 // (definitions of the IOPs; Mobley 1994, Light and Water, ch. 3).
@@ -295,20 +334,7 @@ func TestDefaultKernelAccuracy(t *testing.T) {
 // The per-point optics (water, CDOM, every population) allocate nothing
 // once a worker is built (STYLE.md: hot loops allocate nothing).
 func TestFillAllocs(t *testing.T) {
-	r := runSmall(t)
-	s := r.Scenario
-	pops, err := buildPopulations(context.Background(), s, Options{Kernel: DefaultKernel}, referenceWater(s), func(string, ...any) {})
-	if err != nil {
-		t.Fatal(err)
-	}
-	opt, _ := Options{}.normalise()
-	w, err := r.newWorker(pops, opt)
-	if err != nil {
-		t.Fatal(err)
-	}
-	for i := range pops {
-		w.mass[i], w.flocD[i] = 0.05, 80e-6
-	}
+	r, pops, w := fillWorker(t, runSmall(t))
 	allocs := testing.AllocsPerRun(20, func() {
 		if err := w.fill(r, pops, 12, 11.5); err != nil {
 			t.Fatal(err)
@@ -317,6 +343,26 @@ func TestFillAllocs(t *testing.T) {
 	if allocs != 0 {
 		t.Errorf("fill allocates %g times per call, want 0", allocs)
 	}
+}
+
+// fillWorker builds the kernels of r's scenario and a worker holding every
+// population at 50 g m⁻³ with 80 µm flocs, for the per-point optics.
+func fillWorker(tb testing.TB, r *Result) (*Result, []*popOptics, *worker) {
+	tb.Helper()
+	s := r.Scenario
+	pops, err := buildPopulations(context.Background(), s, Options{Kernel: DefaultKernel}, referenceWater(s), func(string, ...any) {})
+	if err != nil {
+		tb.Fatal(err)
+	}
+	opt, _ := Options{}.normalise()
+	w, err := r.newWorker(pops, opt)
+	if err != nil {
+		tb.Fatal(err)
+	}
+	for i := range pops {
+		w.mass[i], w.flocD[i] = 0.05, 80e-6
+	}
+	return r, pops, w
 }
 
 // A cancelled context stops the run with the context's error (an
@@ -339,24 +385,15 @@ func TestInstruments(t *testing.T) {
 	if len(r.Instruments) != 3 || len(r.SkippedInstruments) != 0 {
 		t.Fatalf("instruments %v, skipped %v; want the demo's three", r.Instruments, r.SkippedInstruments)
 	}
-	angleIndex := func(theta float64) int {
-		for i, a := range r.Angles {
-			if math.Abs(a-theta) < 1e-9 {
-				return i
-			}
+	onGrid := func(grid []float64, v, tol float64) int {
+		i := slices.IndexFunc(grid, func(g float64) bool { return math.Abs(g-v) < tol })
+		if i < 0 {
+			t.Fatalf("%g not on the grid %v", v, grid)
 		}
-		t.Fatalf("angle %g not on the grid", theta)
-		return -1
+		return i
 	}
-	wlIndex := func(l float64) int {
-		for i, v := range r.Wavelengths {
-			if math.Abs(v-l) < 1e-15 {
-				return i
-			}
-		}
-		t.Fatalf("wavelength %g not on the grid", l)
-		return -1
-	}
+	angleIndex := func(theta float64) int { return onGrid(r.Angles, theta, 1e-9) }
+	wlIndex := func(l float64) int { return onGrid(r.Wavelengths, l, 1e-15) }
 	for i, in := range r.Instruments {
 		for p := range r.Salinity {
 			rd := r.Readings[p*len(r.Instruments)+i]

@@ -1,9 +1,6 @@
 package main
 
 import (
-	"errors"
-	"flag"
-	"fmt"
 	"io"
 
 	"github.com/murk-optics/murk/scenario/demo"
@@ -28,30 +25,21 @@ stdout instead, as a starting point for your own.
 `
 
 func runDemo(args []string, stdout, stderr io.Writer) int {
-	fs := flag.NewFlagSet("demo", flag.ContinueOnError)
-	fs.SetOutput(stderr)
-	fs.Usage = func() { fmt.Fprint(stderr, demoHelp); fs.PrintDefaults() }
-	out := fs.String("out", "", "output directory (default: no files, summary only)")
-	print := fs.Bool("print", false, "print the demo scenario YAML and exit")
-	if err := fs.Parse(args); err != nil {
-		if errors.Is(err, flag.ErrHelp) {
-			return exitOK
-		}
-		return exitUsage
-	}
-	if fs.NArg() > 0 {
-		fmt.Fprintf(stderr, "murk demo: unexpected argument %q\n", fs.Arg(0))
-		return exitUsage
+	c := newCLI("demo", demoHelp, stderr)
+	out := c.fs.String("out", "", "output directory (default: no files, summary only)")
+	print := c.fs.Bool("print", false, "print the demo scenario YAML and exit")
+	if _, code, ok := c.parse(args, 0, ""); !ok {
+		return code
 	}
 	if *print {
 		if _, err := stdout.Write(demo.Source()); err != nil {
-			return exitFailure
+			return c.fail(err)
 		}
 		return exitOK
 	}
 	s, err := demo.Scenario()
 	if err != nil {
-		return reportLoadError("demo", err, stderr)
+		return c.loadFailed(err)
 	}
-	return runScenario("demo", s, *out, true, stdout, stderr)
+	return c.runScenario(s, *out, true, stdout)
 }

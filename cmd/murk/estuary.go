@@ -2,13 +2,12 @@ package main
 
 import (
 	"context"
-	"errors"
-	"flag"
 	"fmt"
 	"io"
 
 	"github.com/murk-optics/murk/scenario"
 	"github.com/murk-optics/murk/scenario/spec"
+	"github.com/murk-optics/murk/scenario/table"
 )
 
 func init() {
@@ -29,39 +28,18 @@ turbidity maximum of the last output to stderr.
 `
 
 func runEstuary(args []string, stdout, stderr io.Writer) int {
-	fs := flag.NewFlagSet("estuary", flag.ContinueOnError)
-	fs.SetOutput(stderr)
-	fs.Usage = func() { fmt.Fprint(stderr, estuaryHelp); fs.PrintDefaults() }
-	out := fs.String("out", "", "CSV file to write (default stdout)")
-	pos, err := parseInterleaved(fs, args)
-	if err != nil {
-		if errors.Is(err, flag.ErrHelp) {
-			return exitOK
-		}
-		return exitUsage
-	}
-	if len(pos) != 1 {
-		fmt.Fprintln(stderr, "murk estuary: want exactly one estuary file")
-		return exitUsage
-	}
-	e, err := spec.LoadEstuary(pos[0])
-	if err != nil {
-		return reportLoadError("estuary", err, stderr)
+	c := newCLI("estuary", estuaryHelp, stderr)
+	out := c.fs.String("out", "", "CSV file to write (default stdout)")
+	e, _, code, ok := loadOne(c, args, "estuary file", spec.LoadEstuary)
+	if !ok {
+		return code
 	}
 	er, err := scenario.RunEstuary(context.Background(), e, scenario.Options{})
 	if err != nil {
-		fmt.Fprintf(stderr, "murk estuary: %v\n", err)
-		return exitFailure
+		return c.fail(err)
 	}
-	t := er.Table()
-	if *out == "" {
-		err = t.WriteCSV(stdout)
-	} else {
-		err = scenario.WriteTable(*out, t)
-	}
-	if err != nil {
-		fmt.Fprintf(stderr, "murk estuary: %v\n", err)
-		return exitFailure
+	if code := c.writeTable(er.Table(), *out, table.CSV, stdout); code != exitOK {
+		return code
 	}
 	fmt.Fprint(stderr, er.Describe())
 	return exitOK

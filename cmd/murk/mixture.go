@@ -2,14 +2,10 @@ package main
 
 import (
 	"context"
-	"errors"
-	"flag"
-	"fmt"
 	"io"
 
 	"github.com/murk-optics/murk/scenario"
 	"github.com/murk-optics/murk/scenario/spec"
-	"github.com/murk-optics/murk/scenario/table"
 )
 
 func init() {
@@ -30,38 +26,15 @@ header.
 `
 
 func runMixture(args []string, stdout, stderr io.Writer) int {
-	fs := flag.NewFlagSet("mixture", flag.ContinueOnError)
-	fs.SetOutput(stderr)
-	fs.Usage = func() { fmt.Fprint(stderr, mixtureHelp); fs.PrintDefaults() }
-	format := fs.String("format", "table", "output format: table, csv or json")
-	pos, err := parseInterleaved(fs, args)
-	if err != nil {
-		if errors.Is(err, flag.ErrHelp) {
-			return exitOK
-		}
-		return exitUsage
-	}
-	if len(pos) != 1 {
-		fmt.Fprintln(stderr, "murk mixture: want exactly one mixture file")
-		return exitUsage
-	}
-	f, err := table.ParseFormat(*format)
-	if err != nil {
-		fmt.Fprintf(stderr, "murk mixture: %v\n", err)
-		return exitUsage
-	}
-	m, err := spec.LoadMixture(pos[0])
-	if err != nil {
-		return reportLoadError("mixture", err, stderr)
+	c := newCLI("mixture", mixtureHelp, stderr)
+	format := c.formatFlag()
+	m, _, code, ok := loadOne(c, args, "mixture file", spec.LoadMixture)
+	if !ok {
+		return code
 	}
 	mr, err := scenario.Mixture(context.Background(), m, scenario.Options{})
 	if err != nil {
-		fmt.Fprintf(stderr, "murk mixture: %v\n", err)
-		return exitFailure
+		return c.fail(err)
 	}
-	if err := mr.Table().Write(stdout, f); err != nil {
-		fmt.Fprintf(stderr, "murk mixture: %v\n", err)
-		return exitFailure
-	}
-	return exitOK
+	return c.writeTable(mr.Table(), "", *format, stdout)
 }
