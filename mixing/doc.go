@@ -128,7 +128,7 @@
 // upper layer; ν(T) from the Vogel equation (within 2.5 % over 0–40 °C).
 //
 // Journal details given here for Hansen & Rattray, Knudsen, Armi & Farmer,
-// Sweby, van Leer, Turner, Munk & Anderson (and its coefficients),
+// Sweby, van Leer, Turner (1973, 1986), Munk & Anderson (and its coefficients),
 // Pacanowski & Philander, Phillips, Simpson et al.,
 // Partheniades and Krone, the Vogel constants and the 0.035 dispersion
 // coefficient are from memory; the other formulas and constants were read in

@@ -19,13 +19,14 @@ type RichardsonDamping struct {
 func MunkAnderson() RichardsonDamping { return RichardsonDamping{Alpha: 3.33, Exponent: 1.5} }
 
 // PacanowskiPhilander returns the scalar form of Pacanowski & Philander (1981,
-// J. Phys. Oceanogr. 11:1443; from memory) without its background term:
+// J. Phys. Oceanogr. 11:1443; from memory), fitted for the equatorial upper
+// ocean, without its background terms ν_b and κ_b:
 // κ = ν0/(1 + 5Ri)^2/(1 + 5Ri) = ν0·(1 + 5Ri)^(−3).
 func PacanowskiPhilander() RichardsonDamping { return RichardsonDamping{Alpha: 5, Exponent: 3} }
 
-// Factor returns f(ri) ∈ [0, 1]. Ri < 0 (unstable) is treated as 0 and
-// Ri = +Inf gives 0 (a finite-amplitude river flow with no tide). NaN gives 1
-// only for the zero value; otherwise NaN is treated as 0.
+// Factor returns f(ri) ∈ [0, 1]. Ri ≤ 0 (unstable or unstratified) and NaN
+// (no stratification information) give 1; Ri = +Inf (a stratified column
+// with no tidal current) gives 0.
 func (d RichardsonDamping) Factor(ri float64) float64 {
 	if d.Alpha == 0 || d.Exponent == 0 {
 		return 1
