@@ -26,7 +26,8 @@
 //     that floc size lags the tide and grows at the salt front. The
 //     estuary model never imports the floc package: the coupling is this
 //     settling function.
-//  3. IOPs at every station, layer and output time, as cheap weighted sums:
+//  3. IOPs at every station, layer and output time, and the bulk IOPs at
+//     every model cell for the along-channel section, as cheap weighted sums:
 //     water with the local salinity and temperature (package scenario/water:
 //     Pope & Fry 1997 and companions for absorption, Zhang, Hu & He 2009 for
 //     scattering), CDOM mixed conservatively with salinity, pigment
@@ -50,23 +51,32 @@
 //
 // Station values are interpolated linearly between cell centres (floc size
 // in ln D), held constant between the mouth and the first centre and
-// between the last centre and the head.
+// between the last centre and the head. The section (Result.Section) is
+// evaluated at the cell centres themselves: the water state, total and
+// particulate a, b and b_b per wavelength and the spectral slopes, at the
+// model's full resolution; per-component spectra, the VSF, apparent
+// properties and instruments stay at the stations.
 //
 // # Determinism
 //
 // Kernels are built by package mie/kernel's deterministic parallel builder;
 // the per-point evaluation hands whole output times to workers, each point is
 // computed by one worker into its own slots, and every reduction is in index
-// order. Results are bit-for-bit identical for any GOMAXPROCS and any
+// order. Output files are written several at once, each from the finished
+// Result alone. Results are bit-for-bit identical for any GOMAXPROCS and any
 // Options.Workers (tested).
 //
 // # Outputs
 //
-// CSV tables with units in the header (section along the channel at the
-// reference wavelength nearest 550 nm; spectra per component at every
-// station, layer and time; reflectance and clarity), the text summary, a CF
-// NetCDF file and figures. Every file is written to a temporary file and
-// renamed (package scenario/safefile).
+// CSV tables with units in the header (section.csv: the section along the
+// channel at every model cell, IOPs at the reference wavelength nearest
+// 550 nm; stations.csv: the same at the stations; spectra per component at
+// every station, layer and time; reflectance and clarity; instruments), the
+// text summary, a CF NetCDF file (station variables on dimension distance,
+// section variables, prefixed section_, on dimension cell_distance) and
+// figures (sections at every cell, spectra at up to five stations, tidal
+// envelopes near the turbidity maximum). Every file is written to a
+// temporary file and renamed (package scenario/safefile).
 //
 // # Units
 //

@@ -59,8 +59,9 @@ type sectionFigure struct {
 //   - tidal envelopes of salinity, suspended sediment and backscattering at
 //     the station nearest the turbidity maximum.
 //
-// Quantities spanning decades (concentration, b_b, c, floc size) have
-// logarithmic axes.
+// A figure has a logarithmic Y axis when its quantity can span decades
+// (concentration, b_b, c, floc size) and its values do span at least one
+// decade; otherwise the axis is linear, which reads more easily.
 func (r *Result) Figures() []NamedFigure {
 	var figs []NamedFigure
 	wref := refWavelength(r.Wavelengths)
@@ -76,7 +77,7 @@ func (r *Result) Figures() []NamedFigure {
 		{"section_bb_ratio", plot.Quantity{Name: "Particle backscattering ratio b_bp/b_p at " + lam, Unit: "1"}, func(ps *Points, p int) float64 {
 			return ratio(ps.Bbp[p*nw+wref], ps.Bp[p*nw+wref])
 		}, false, false},
-		{"section_bbp_slope", plot.Quantity{Name: "Spectral slope γ of b_bp (b_bp ∝ λ^-γ)", Unit: "1"}, func(ps *Points, p int) float64 { return ps.ParticleBbSlope[p] }, false, false},
+		{"section_bbp_slope", plot.Quantity{Name: "Spectral slope γ of b_bp (b_bp ~ λ^-γ)", Unit: "1"}, func(ps *Points, p int) float64 { return ps.ParticleBbSlope[p] }, false, false},
 	}
 	for i, pop := range r.Scenario.Mixture.Populations {
 		if r.hasFlocs(i) {
@@ -85,31 +86,42 @@ func (r *Result) Figures() []NamedFigure {
 		}
 	}
 	sec := &r.Section
-	if len(sec.Distance) >= 2 {
-		km := make([]float64, len(sec.Distance))
-		for i, x := range sec.Distance {
-			km[i] = x / 1e3
+	if n := len(sec.Distance); n >= 2 {
+		// Cell centres plus the mouth and the head, where the end cells'
+		// values hold (the package's convention between the last centre
+		// and either end), so that the axis spans the whole channel.
+		km := make([]float64, 0, n+2)
+		km = append(km, 0)
+		for _, x := range sec.Distance {
+			km = append(km, x/1e3)
 		}
+		km = append(km, (sec.Distance[n-1]+(sec.Distance[n-1]-sec.Distance[n-2])/2)/1e3)
+		ends := func(v []float64) []float64 { return append(append([]float64{v[0]}, v...), v[n-1]) }
 		for _, v := range vals {
 			lines := make([]plot.Line, mixing.Layers)
 			var band *plot.Band
 			for l := range lines {
 				mean, lo, hi := r.tidalStats(sec, l, v.f)
-				lines[l] = plot.Line{Label: layerName(l) + " layer, tidal mean", Y: mean}
+				lines[l] = plot.Line{Label: layerName(l) + " layer, tidal mean", Y: ends(mean)}
 				if l == 0 {
-					band = &plot.Band{Label: "upper layer, tidal range", Lo: lo, Hi: hi}
+					band = &plot.Band{Label: "upper layer, tidal range", Lo: ends(lo), Hi: ends(hi)}
 				}
 			}
-			f := r.sectionPlot(v.q.Name, km, v.q, lines, band)
-			f.LogY = v.log && positive(band.Lo) && positive(lines[1].Y)
+			title := v.q.Name + " along the channel"
+			if v.base == "section_bbp_slope" {
+				title = fmt.Sprintf("b_bp spectral slope along the channel (differences below %.1f are within fit scatter)", float64(slopeChange))
+			}
+			f := r.sectionPlot(title, km, v.q, lines, band)
+			f.LogY = v.log && decades(band.Lo, band.Hi, lines[1].Y)
 			figs = append(figs, NamedFigure{v.base, f})
 		}
-		// The layer structure: depth of the interface and of the bed.
-		iface, lo, hi := r.tidalStats(sec, 0, func(ps *Points, p int) float64 { return ps.Thickness[p] })
-		bed, _, _ := r.tidalStats(sec, 0, func(ps *Points, p int) float64 { return ps.Thickness[p] + ps.Thickness[p+1] })
-		f := r.sectionPlot("Layer structure", km, plot.Quantity{Name: "Depth below the water surface", Unit: "m"},
-			[]plot.Line{{Label: "interface between the layers, tidal mean", Y: iface}, {Label: "bed (total depth), tidal mean", Y: bed}},
-			&plot.Band{Label: "interface, tidal range", Lo: lo, Hi: hi})
+		// The layer structure, as heights above the bed: the water
+		// surface (total depth) and the interface (lower-layer thickness).
+		surface, _, _ := r.tidalStats(sec, 0, func(ps *Points, p int) float64 { return ps.Thickness[p] + ps.Thickness[p+1] })
+		iface, lo, hi := r.tidalStats(sec, 1, func(ps *Points, p int) float64 { return ps.Thickness[p] })
+		f := r.sectionPlot("Layer structure along the channel", km, plot.Quantity{Name: "Height above the bed", Unit: "m"},
+			[]plot.Line{{Label: "water surface, tidal mean", Y: ends(surface)}, {Label: "interface between the layers, tidal mean", Y: ends(iface)}},
+			&plot.Band{Label: "interface, tidal range", Lo: ends(lo), Hi: ends(hi)})
 		figs = append(figs, NamedFigure{"section_layers", f})
 	}
 	// Spectra at stations.
@@ -133,7 +145,7 @@ func (r *Result) Figures() []NamedFigure {
 			{"spectra_rrs", plot.Quantity{Name: "Remote-sensing reflectance R_rs", Unit: "sr-1"}, func(t, j, w int) float64 { return r.Rrs[(t*len(r.Stations)+j)*nw+w] }},
 		} {
 			var lines []plot.Line
-			pos := true
+			var all []float64
 			for _, st := range spec {
 				ln := plot.Line{Label: st.label, Y: make([]float64, nw)}
 				for w := range r.Wavelengths {
@@ -141,11 +153,11 @@ func (r *Result) Figures() []NamedFigure {
 						ln.Y[w] += sp.f(t, st.j, w) / float64(nt)
 					}
 				}
-				pos = pos && positive(ln.Y)
+				all = append(all, ln.Y...)
 				lines = append(lines, ln)
 			}
 			f := plot.Spectra(sp.q.Name+", upper layer, tidal mean", nm, sp.q, lines)
-			f.LogY = pos && sp.base != "spectra_rrs"
+			f.LogY = sp.base != "spectra_rrs" && decades(all)
 			figs = append(figs, NamedFigure{sp.base, f})
 		}
 	}
@@ -174,7 +186,7 @@ func (r *Result) Figures() []NamedFigure {
 			base := "envelope_" + v.base[len("section_"):]
 			f := plot.Envelope(fmt.Sprintf("%s through the tide at %.1f km (near the turbidity maximum)", v.q.Name, r.Stations[j]/1e3), th, v.q, lines, band)
 			f.X = plot.Quantity{Name: fmt.Sprintf("Time since the first output, %.1f days after the start", r.Times[0]/86400), Unit: "h"}
-			f.LogY = v.log && positive(band.Lo)
+			f.LogY = v.log && decades(band.Lo, band.Hi)
 			figs = append(figs, NamedFigure{base, f})
 		}
 	}
@@ -184,8 +196,8 @@ func (r *Result) Figures() []NamedFigure {
 // sectionPlot is a section figure with the distance axis stating which
 // end is the sea.
 func (r *Result) sectionPlot(title string, km []float64, q plot.Quantity, lines []plot.Line, band *plot.Band) plot.Figure {
-	f := plot.Section(title+", along the channel", km, q, lines, band)
-	f.X = plot.Quantity{Name: "Distance from the mouth (0 = sea, landward positive)", Unit: "km"}
+	f := plot.Section(title, km, q, lines, band)
+	f.X = plot.Quantity{Name: "Distance landward from the mouth (sea at 0)", Unit: "km"}
 	return f
 }
 
@@ -206,13 +218,19 @@ func (r *Result) tidalStats(ps *Points, l int, f pointValue) (mean, lo, hi []flo
 	return mean, lo, hi
 }
 
-func positive(v []float64) bool {
-	for _, x := range v {
-		if !(x > 0) {
-			return false
+// decades reports whether the values are all positive and span at least
+// one decade, the case for a logarithmic axis.
+func decades(vs ...[]float64) bool {
+	lo, hi := math.Inf(1), 0.0
+	for _, v := range vs {
+		for _, x := range v {
+			if !(x > 0) {
+				return false
+			}
+			lo, hi = min(lo, x), max(hi, x)
 		}
 	}
-	return true
+	return hi >= 10*lo
 }
 
 // nearestStation returns the index of the station nearest distance x.
@@ -233,34 +251,28 @@ type spectraStation struct {
 }
 
 // spectraStations picks at most maxSpectraLines stations, river first:
-// both ends and evenly spaced ones between, with the station nearest the
-// turbidity maximum always among them.
+// the two ends, the station nearest the turbidity maximum (the middle of
+// the channel without sediment) and the stations nearest halfway between
+// it and either end.
 func (r *Result) spectraStations() []spectraStation {
 	order := r.stationOrder()
 	n := len(order)
 	if n == 0 {
 		return nil
 	}
-	etm := -1
+	x0, x1 := r.Stations[order[0]], r.Stations[order[n-1]]
+	xe, etm := (x0+x1)/2, -1
 	if len(r.Classes) > 0 {
 		etm = r.nearestStation(r.Summary.ETMPosition)
+		xe = r.Stations[etm]
 	}
-	var pick []int
-	if n <= maxSpectraLines {
-		pick = order
-	} else {
-		for k := 0; k < maxSpectraLines; k++ {
-			pick = append(pick, order[(k*(n-1)+(maxSpectraLines-1)/2)/(maxSpectraLines-1)])
-		}
-		if etm >= 0 && !slices.Contains(pick, etm) {
-			// Replace the nearest inner pick by the turbidity maximum.
-			best := 1
-			for k := 1; k < len(pick)-1; k++ {
-				if math.Abs(r.Stations[pick[k]]-r.Stations[etm]) < math.Abs(r.Stations[pick[best]]-r.Stations[etm]) {
-					best = k
-				}
+	pick := order
+	if n > maxSpectraLines {
+		pick = nil
+		for _, x := range []float64{x0, (x0 + xe) / 2, xe, (xe + x1) / 2, x1} {
+			if j := r.nearestStation(x); !slices.Contains(pick, j) {
+				pick = append(pick, j)
 			}
-			pick[best] = etm
 		}
 	}
 	var out []spectraStation

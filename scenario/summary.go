@@ -44,20 +44,24 @@ type StationSummary struct {
 
 // Summary is the digest of a run that the text summary prints.
 type Summary struct {
-	Name                 string
-	Regime               mixing.Regime
-	IntrusionLength      float64 // mean over outputs, m (bottom 2 PSU isohaline)
-	IntrusionMin         float64 // m
-	IntrusionMax         float64 // m
-	MeanStratification   float64 // mean over outputs, 1
-	ETMPosition          float64 // tidally averaged turbidity maximum, m from the mouth
-	ETMPeak              float64 // depth-mean concentration there, kg m⁻³
-	ETMBottomSalinity    float64 // mean lower-layer salinity there, PSU
-	ETMFlocDiameter      float64 // lower-layer median floc size at the station nearest the ETM, m (0: no flocs)
-	RiverFlocDiameter    float64 // lower-layer median floc size at the most landward station, m
-	ReferenceWavelength  float64 // m
-	Stations             []StationSummary
-	PigmentFromParticles bool // chlorophyll was not added as pigment (phytoplankton are particles)
+	Name                string
+	Regime              mixing.Regime
+	IntrusionLength     float64 // mean over outputs, m (bottom 2 PSU isohaline)
+	IntrusionMin        float64 // m
+	IntrusionMax        float64 // m
+	MeanStratification  float64 // mean over outputs, 1
+	ETMPosition         float64 // tidally averaged turbidity maximum, m from the mouth
+	ETMPeak             float64 // depth-mean concentration there, kg m⁻³
+	ETMBottomSalinity   float64 // mean lower-layer salinity there, PSU
+	ETMFlocDiameter     float64 // lower-layer median floc size at the station nearest the ETM, m (0: no flocs)
+	RiverFlocDiameter   float64 // lower-layer median floc size at the most landward station, m
+	ReferenceWavelength float64 // m
+	// BbpPeak is the largest tidal-mean upper-layer b_bp at the reference
+	// wavelength along the section (every model cell), m⁻¹, at
+	// BbpPeakPosition, m from the mouth.
+	BbpPeak, BbpPeakPosition float64
+	Stations                 []StationSummary
+	PigmentFromParticles     bool // chlorophyll was not added as pigment (phytoplankton are particles)
 }
 
 // refWavelength returns the index of the grid wavelength nearest 550 nm,
@@ -129,6 +133,14 @@ func summarise(r *Result) Summary {
 
 	wref := refWavelength(r.Wavelengths)
 	s.ReferenceWavelength = r.Wavelengths[wref]
+	if sec := &r.Section; len(sec.Distance) > 0 {
+		bbp, _, _ := r.tidalStats(sec, 0, func(ps *Points, p int) float64 { return ps.Bbp[p*r.NW()+wref] })
+		for i, v := range bbp {
+			if v > s.BbpPeak {
+				s.BbpPeak, s.BbpPeakPosition = v, sec.Distance[i]
+			}
+		}
+	}
 	s.PigmentFromParticles = !pigmentApplies(r.Scenario) && (r.Scenario.Mixture.Water.Chlorophyll.River > 0 || r.Scenario.Mixture.Water.Chlorophyll.Ocean > 0)
 	firstFloc := -1
 	for i, p := range r.Scenario.Mixture.Populations {
@@ -218,11 +230,8 @@ func summarise(r *Result) Summary {
 		s.Stations = append(s.Stations, st)
 	}
 	if firstFloc >= 0 && ns > 0 {
-		near, head := 0, 0
+		near, head := r.nearestStation(s.ETMPosition), 0
 		for j, x := range r.Stations {
-			if math.Abs(x-s.ETMPosition) < math.Abs(r.Stations[near]-s.ETMPosition) {
-				near = j
-			}
 			if x > r.Stations[head] {
 				head = j
 			}
@@ -340,12 +349,7 @@ func (r *Result) instrumentLines() string {
 		return ""
 	}
 	mouth, head := order[0], order[len(order)-1]
-	etm := order[0]
-	for _, j := range order {
-		if math.Abs(r.Stations[j]-r.Summary.ETMPosition) < math.Abs(r.Stations[etm]-r.Summary.ETMPosition) {
-			etm = j
-		}
-	}
+	etm := r.nearestStation(r.Summary.ETMPosition)
 	ni := len(r.Instruments)
 	for i, in := range r.Instruments {
 		mean := func(j int) (v, t float64) {
@@ -386,6 +390,13 @@ const maxSummaryRows = 12
 // waters (common practice; fits over 400–900 nm are steadier than that).
 const slopeChange = 0.1
 
+// saltLimitReach is how near, as a fraction of the salt intrusion length,
+// the summary calls a turbidity maximum "near the limit of salt": a
+// quarter, the band in which turbidity maxima are usually found around the
+// landward limit of salt (Schubel 1968, Chesapeake Sci. 9:131; from
+// memory; the same limit as TestExamples).
+const saltLimitReach = 0.25
+
 // ratioChange is the least relative difference of b_bp/b_p the summary
 // explains: 10 %, about the uncertainty of measured ratios (common
 // practice; Twardowski et al. 2001, J. Geophys. Res. 106:14129, resolve
@@ -416,18 +427,44 @@ func (r *Result) interpretation() string {
 	}
 	var b strings.Builder
 	b.WriteString("What the numbers say:\n")
-	peak := head
+	fmt.Fprintf(&b, "- Backscattering b_bp goes from %.3g 1/m at the river end (%.0f km) to %.3g 1/m at the mouth; along the section (every model cell) its largest value is %.3g 1/m at %.1f km.\n",
+		head.ParticleBb, head.Distance/1e3, mouth.ParticleBb, s.BbpPeak, s.BbpPeakPosition/1e3)
+	fmt.Fprintf(&b, "- Its spectral slope γ goes from %.2f (river) through %.2f (turbidity maximum) to %.2f (sea).", head.BbSlope, etm.BbSlope, mouth.BbSlope)
+	gLo, gHi := head.BbSlope, head.BbSlope
+	dLo, dHi := math.Inf(1), 0.0
 	for _, st := range s.Stations {
-		if st.ParticleBb > peak.ParticleBb {
-			peak = st
+		gLo, gHi = min(gLo, st.BbSlope), max(gHi, st.BbSlope)
+		if st.FlocDiameter > 0 {
+			dLo, dHi = min(dLo, st.FlocDiameter), max(dHi, st.FlocDiameter)
 		}
 	}
-	fmt.Fprintf(&b, "- Backscattering b_bp goes from %.3g 1/m at the river end (%.0f km) to %.3g 1/m at the mouth, with its largest value %.3g 1/m at %.0f km.\n",
-		head.ParticleBb, head.Distance/1e3, mouth.ParticleBb, peak.ParticleBb, peak.Distance/1e3)
-	fmt.Fprintf(&b, "- Its spectral slope γ goes from %.2f (river) through %.2f (turbidity maximum) to %.2f (sea).", head.BbSlope, etm.BbSlope, mouth.BbSlope)
 	switch d := etm.BbSlope - head.BbSlope; {
-	case math.Abs(d) < slopeChange:
-		b.WriteString(" It hardly changes: the particles that dominate b_bp keep their size distribution along the channel.\n")
+	case gHi-gLo < slopeChange:
+		fmt.Fprintf(&b, " It hardly changes (%.2f–%.2f over the stations, within the %.1f that separates fitted slopes):", gLo, gHi, float64(slopeChange))
+		switch {
+		case head.Dominant != mouth.Dominant || dHi > 2*dLo:
+			b.WriteString(" the b_bp spectra of the particles here are about equally flat, so")
+			if head.Dominant != mouth.Dominant {
+				fmt.Fprintf(&b, " the change of the main backscatterer (%s at the river end, %s at sea)", head.Dominant, mouth.Dominant)
+				if dHi > 2*dLo {
+					b.WriteString(" and")
+				}
+			}
+			if dHi > 2*dLo {
+				fmt.Fprintf(&b, " the change of floc size (%.0f–%.0f µm in the upper layer)", dLo*1e6, dHi*1e6)
+			}
+			b.WriteString(" do not show in γ")
+			rLo, rHi := math.Inf(1), 0.0
+			for _, st := range s.Stations {
+				rLo, rHi = min(rLo, st.ParticleBbRatio), max(rHi, st.ParticleBbRatio)
+			}
+			if rHi > (1+ratioChange)*rLo {
+				b.WriteString("; the backscattering ratio below does respond to them")
+			}
+			b.WriteString(".\n")
+		default:
+			b.WriteString(" the particles that dominate b_bp keep their size distribution along the channel.\n")
+		}
 	case d < 0:
 		b.WriteString(" A flatter spectrum (smaller γ) means larger particles: flocs formed at the salt front.\n")
 	default:
@@ -470,7 +507,14 @@ func (r *Result) interpretation() string {
 	}
 	if len(r.Classes) > 0 {
 		fmt.Fprintf(&b, "- Why the turbidity maximum sits at %.0f km: near-bed water flows landward with the salt and river water seaward above it;", s.ETMPosition/1e3)
-		fmt.Fprintf(&b, " sediment settling out of the upper layer is carried back up-estuary by the bottom flow and collects where that flow weakens, toward the limit of salt (%.0f km).", s.IntrusionLength/1e3)
+		b.WriteString(" sediment settling out of the upper layer is carried back up-estuary by the bottom flow and collects where that flow weakens.")
+		if d := s.IntrusionLength - s.ETMPosition; math.Abs(d) <= saltLimitReach*s.IntrusionLength {
+			fmt.Fprintf(&b, " That is near the limit of salt (%.0f km).", s.IntrusionLength/1e3)
+		} else if d > 0 {
+			fmt.Fprintf(&b, " Here that is %.0f km seaward of the limit of salt (%.0f km), where the bottom water still has %.1f PSU.", d/1e3, s.IntrusionLength/1e3, s.ETMBottomSalinity)
+		} else {
+			fmt.Fprintf(&b, " Here that is %.0f km landward of the limit of salt (%.0f km).", -d/1e3, s.IntrusionLength/1e3)
+		}
 		if s.ETMFlocDiameter > 0 && s.ETMFlocDiameter > s.RiverFlocDiameter {
 			fmt.Fprintf(&b, " Flocs grow in salt water (%.0f µm there against %.0f µm in fresh water), settle faster and are trapped more strongly.", s.ETMFlocDiameter*1e6, s.RiverFlocDiameter*1e6)
 		}
