@@ -61,7 +61,6 @@ func (r *Result) pointsTable(ps *Points, title string, t0, t1 int) *table.Table 
 		table.Column{Name: "bbp_over_bp", Unit: "1"}, table.Column{Name: "bbp_slope", Unit: "1"},
 		table.Column{Name: "cp_slope", Unit: "1"},
 	)
-	nw := r.NW()
 	for ti := t0; ti < t1; ti++ {
 		for j, x := range ps.Distance {
 			for l := 0; l < mixing.Layers; l++ {
@@ -75,9 +74,9 @@ func (r *Result) pointsTable(ps *Points, title string, t0, t1 int) *table.Table 
 						row = append(row, ps.FlocDiameter[p*r.NP()+i]*1e6)
 					}
 				}
-				q := p*nw + wref
-				a, b, bb := ps.TotalA[q], ps.TotalB[q], ps.TotalBb[q]
-				row = append(row, a, b, bb, a+b, ratio(bb, b), ps.Bbp[q], ratio(ps.Bbp[q], ps.Bp[q]), ps.ParticleBbSlope[p], ps.ParticleCSlope[p])
+				a, b, bb := ps.AtRef(ps.TotalA, p), ps.AtRef(ps.TotalB, p), ps.AtRef(ps.TotalBb, p)
+				bp, bbp := ps.AtRef(ps.Bp, p), ps.AtRef(ps.Bbp, p)
+				row = append(row, a, b, bb, a+b, ratio(bb, b), bbp, ratio(bbp, bp), ps.ParticleBbSlope[p], ps.ParticleCSlope[p])
 				t.Add(row...)
 			}
 		}

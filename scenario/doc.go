@@ -53,9 +53,11 @@
 // in ln D), held constant between the mouth and the first centre and
 // between the last centre and the head. The section (Result.Section) is
 // evaluated at the cell centres themselves: the water state, total and
-// particulate a, b and b_b per wavelength and the spectral slopes, at the
-// model's full resolution; per-component spectra, the VSF, apparent
-// properties and instruments stay at the stations.
+// particulate a, b and b_b at the reference wavelength (nearest 550 nm)
+// and the spectral slopes (fitted over the whole spectrum), at the model's
+// full resolution; full spectra, the components, the VSF, apparent
+// properties and instruments stay at the stations, so that the section's
+// memory grows with the cells alone.
 //
 // # Determinism
 //

@@ -146,6 +146,12 @@ func (r *Result) ncVars() []ncVar {
 func (r *Result) addPointVars(add func(name string, dims []string, units, long, std string, data func() []float64), ps *Points, prefix, dist, where string) {
 	tdl := []string{"time", dist, "layer"}
 	tdlw := []string{"time", dist, "layer", "wavelength"}
+	whereW := where
+	if len(ps.Band) != r.NW() {
+		// The section keeps its totals at the reference wavelength only.
+		tdlw = tdl
+		whereW = fmt.Sprintf("%s, at %.0f nm", where, r.Wavelengths[ps.Band[ps.Ref]]*1e9)
+	}
 	same := func(v []float64) func() []float64 { return func() []float64 { return v } }
 	add(prefix+"salinity", tdl, "1", "practical salinity of the layer"+where, cf.StdSalinity, same(ps.Salinity))
 	add(prefix+"temperature", tdl, "degC", "water temperature of the layer"+where, cf.StdTemperature, same(ps.Temperature))
@@ -169,25 +175,25 @@ func (r *Result) addPointVars(add func(name string, dims []string, units, long, 
 			})
 		}
 	}
-	add(prefix+"a", tdlw, "m-1", "absorption coefficient, total"+where, cf.StdAbsorption, same(ps.TotalA))
-	add(prefix+"b", tdlw, "m-1", "scattering coefficient, total"+where, cf.StdScattering, same(ps.TotalB))
-	add(prefix+"bb", tdlw, "m-1", "backscattering coefficient, total"+where, cf.StdBackscattering, same(ps.TotalBb))
-	add(prefix+"c", tdlw, "m-1", "beam attenuation coefficient, total"+where, cf.StdBeamAttenuation, func() []float64 {
+	add(prefix+"a", tdlw, "m-1", "absorption coefficient, total"+whereW, cf.StdAbsorption, same(ps.TotalA))
+	add(prefix+"b", tdlw, "m-1", "scattering coefficient, total"+whereW, cf.StdScattering, same(ps.TotalB))
+	add(prefix+"bb", tdlw, "m-1", "backscattering coefficient, total"+whereW, cf.StdBackscattering, same(ps.TotalBb))
+	add(prefix+"c", tdlw, "m-1", "beam attenuation coefficient, total"+whereW, cf.StdBeamAttenuation, func() []float64 {
 		v := make([]float64, len(ps.TotalA))
 		for i := range v {
 			v[i] = ps.TotalA[i] + ps.TotalB[i]
 		}
 		return v
 	})
-	add(prefix+"bb_ratio", tdlw, "1", "backscattering ratio bb/b, total"+where, "", func() []float64 {
+	add(prefix+"bb_ratio", tdlw, "1", "backscattering ratio bb/b, total"+whereW, "", func() []float64 {
 		v := make([]float64, len(ps.TotalB))
 		for i := range v {
 			v[i] = ratio(ps.TotalBb[i], ps.TotalB[i])
 		}
 		return v
 	})
-	add(prefix+"bp", tdlw, "m-1", "scattering coefficient of the particles"+where, "", same(ps.Bp))
-	add(prefix+"bbp", tdlw, "m-1", "backscattering coefficient of the particles"+where, "", same(ps.Bbp))
+	add(prefix+"bp", tdlw, "m-1", "scattering coefficient of the particles"+whereW, "", same(ps.Bp))
+	add(prefix+"bbp", tdlw, "m-1", "backscattering coefficient of the particles"+whereW, "", same(ps.Bbp))
 	add(prefix+"bbp_slope", tdl, "1", "power-law spectral slope of particulate backscattering, bbp ~ wavelength^-slope"+where, "", same(ps.ParticleBbSlope))
 	add(prefix+"cp_slope", tdl, "1", "power-law spectral slope of particulate beam attenuation"+where, "", same(ps.ParticleCSlope))
 }

@@ -70,12 +70,12 @@ func (r *Result) Figures() []NamedFigure {
 	vals := []sectionFigure{
 		{"section_salinity", plot.Quantity{Name: "Practical salinity", Unit: "1"}, func(ps *Points, p int) float64 { return ps.Salinity[p] }, false, true},
 		{"section_ssc", plot.Quantity{Name: "Suspended sediment", Unit: "g m-3"}, func(ps *Points, p int) float64 { return ps.SSC(p, nc) * 1e3 }, true, true},
-		{"section_bb", plot.Quantity{Name: "Backscattering b_b at " + lam, Unit: "m-1"}, func(ps *Points, p int) float64 { return ps.TotalBb[p*nw+wref] }, true, true},
+		{"section_bb", plot.Quantity{Name: "Backscattering b_b at " + lam, Unit: "m-1"}, func(ps *Points, p int) float64 { return ps.AtRef(ps.TotalBb, p) }, true, true},
 		{"section_c", plot.Quantity{Name: "Beam attenuation c at " + lam, Unit: "m-1"}, func(ps *Points, p int) float64 {
-			return ps.TotalA[p*nw+wref] + ps.TotalB[p*nw+wref]
+			return ps.AtRef(ps.TotalA, p) + ps.AtRef(ps.TotalB, p)
 		}, true, false},
 		{"section_bb_ratio", plot.Quantity{Name: "Particle backscattering ratio b_bp/b_p at " + lam, Unit: "1"}, func(ps *Points, p int) float64 {
-			return ratio(ps.Bbp[p*nw+wref], ps.Bp[p*nw+wref])
+			return ratio(ps.AtRef(ps.Bbp, p), ps.AtRef(ps.Bp, p))
 		}, false, false},
 		{"section_bbp_slope", plot.Quantity{Name: "Spectral slope γ of b_bp (b_bp ~ λ^-γ)", Unit: "1"}, func(ps *Points, p int) float64 { return ps.ParticleBbSlope[p] }, false, false},
 	}

@@ -108,8 +108,9 @@ type Result struct {
 	Points
 	// Section is the same at every model cell (Section.Distance holds
 	// the cell centres), for sections along the channel at the model's
-	// full resolution; spectra per component, the VSF, apparent
-	// properties and instruments are kept at the stations only.
+	// full resolution, with its totals at the reference wavelength only;
+	// spectra, the components, the VSF, apparent properties and
+	// instruments are kept at the stations only.
 	Section Points
 
 	A, B, Bb []float64 // m⁻¹ per component, at the stations
@@ -143,8 +144,15 @@ type Points struct {
 	Concentration                               []float64 // kg m⁻³, [p·NC + class]
 	FlocDiameter                                []float64 // median of floc mass, m, [p·NP + population]; 0 for non-floc populations
 
-	// Totals per wavelength, m⁻¹, [p·NW + w]: all components (A, B, Bb)
-	// and the particles alone (Bp, Bbp).
+	// Band lists the run's wavelength indices the totals are kept at:
+	// every wavelength at the stations, the reference wavelength (nearest
+	// 550 nm) in the section, whose memory then grows with the cells and
+	// not with the spectrum. Ref is the reference wavelength's place in
+	// Band.
+	Band []int
+	Ref  int
+	// Totals, m⁻¹, [p·len(Band) + k] for wavelength Band[k]: all
+	// components (A, B, Bb) and the particles alone (Bp, Bbp).
 	TotalA, TotalB, TotalBb []float64
 	Bp, Bbp                 []float64
 
@@ -152,12 +160,14 @@ type Points struct {
 	ParticleCSlope  []float64 // γ of c_p(λ), 1
 }
 
-// newPoints allocates the points of nx positions at nt times.
-func newPoints(x []float64, nt, nc, np, nw int) Points {
+// newPoints allocates the points of positions x at nt times, with totals
+// at the wavelengths band of which ref is the reference.
+func newPoints(x []float64, band []int, ref, nt, nc, np int) Points {
 	n := nt * len(x) * mixing.Layers
+	nw := len(band)
 	f := func(k int) []float64 { return make([]float64, k) }
 	return Points{
-		Distance: x,
+		Distance: x, Band: band, Ref: ref,
 		Salinity: f(n), Temperature: f(n), ShearRate: f(n), Thickness: f(n),
 		Concentration: f(n * nc), FlocDiameter: f(n * np),
 		TotalA: f(n * nw), TotalB: f(n * nw), TotalBb: f(n * nw), Bp: f(n * nw), Bbp: f(n * nw),
@@ -167,6 +177,10 @@ func newPoints(x []float64, nt, nc, np, nw int) Points {
 
 // Point returns the point index of output time t, position i and layer l.
 func (ps *Points) Point(t, i, l int) int { return (t*len(ps.Distance)+i)*mixing.Layers + l }
+
+// AtRef returns total v (one of TotalA, TotalB, TotalBb, Bp, Bbp) at point
+// p and the reference wavelength.
+func (ps *Points) AtRef(v []float64, p int) float64 { return v[p*len(ps.Band)+ps.Ref] }
 
 // SSC is the suspended sediment concentration of all classes at point p,
 // kg m⁻³.
@@ -411,8 +425,13 @@ func newResult(s spec.Scenario, cfg mixing.Config, est *mixing.Result, pops []*p
 	nq := len(r.Times) * len(r.Stations)
 	nw, nk := r.NW(), r.NK()
 	f := func(n int) []float64 { return make([]float64, n) }
-	r.Points = newPoints(r.Stations, len(r.Times), r.NC(), r.NP(), nw)
-	r.Section = newPoints(est.X, len(r.Times), r.NC(), r.NP(), nw)
+	all := make([]int, nw)
+	for i := range all {
+		all[i] = i
+	}
+	wref := refWavelength(r.Wavelengths)
+	r.Points = newPoints(r.Stations, all, wref, len(r.Times), r.NC(), r.NP())
+	r.Section = newPoints(est.X, []int{wref}, 0, len(r.Times), r.NC(), r.NP())
 	r.A, r.B, r.Bb = f(np*nk*nw), f(np*nk*nw), f(np*nk*nw)
 	r.VSF = f(np * nw * r.NA())
 	r.Rrs, r.Kd = f(nq*nw), f(nq*nw)
@@ -698,7 +717,7 @@ func (r *Result) evaluateTime(w *worker, t int, set *settling, pops []*popOptics
 // their total and particle sum, and the stored totals and slopes.
 func (r *Result) evaluatePoint(w *worker, ps *Points, p, t int, st site, l int, set *settling, pops []*popOptics) error {
 	snap := &r.Estuary.Snapshots[t]
-	nc, np, nw := r.NC(), r.NP(), r.NW()
+	nc, np := r.NC(), r.NP()
 	ncell := len(r.Estuary.X)
 	var sizes []float64
 	if t < len(set.sizes) {
@@ -736,12 +755,11 @@ func (r *Result) evaluatePoint(w *worker, ps *Points, p, t int, st site, l int, 
 	}
 	w.spectra.Sum(&w.total, nil)
 	w.spectra.Sum(&w.part, iop.OfKind(iop.Particles))
-	o := p * nw
-	copy(ps.TotalA[o:o+nw], w.total.A)
-	copy(ps.TotalB[o:o+nw], w.total.B)
-	copy(ps.TotalBb[o:o+nw], w.total.Bb)
-	copy(ps.Bp[o:o+nw], w.part.B)
-	copy(ps.Bbp[o:o+nw], w.part.Bb)
+	o := p * len(ps.Band)
+	for k, wl := range ps.Band {
+		ps.TotalA[o+k], ps.TotalB[o+k], ps.TotalBb[o+k] = w.total.A[wl], w.total.B[wl], w.total.Bb[wl]
+		ps.Bp[o+k], ps.Bbp[o+k] = w.part.B[wl], w.part.Bb[wl]
+	}
 	ps.ParticleBbSlope[p] = slopeOrZero(w.spectra, &w.part, iop.Backscattering, r.Wavelengths)
 	ps.ParticleCSlope[p] = slopeOrZero(w.spectra, &w.part, iop.Attenuation, r.Wavelengths)
 	return nil

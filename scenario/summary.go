@@ -134,7 +134,7 @@ func summarise(r *Result) Summary {
 	wref := refWavelength(r.Wavelengths)
 	s.ReferenceWavelength = r.Wavelengths[wref]
 	if sec := &r.Section; len(sec.Distance) > 0 {
-		bbp, _, _ := r.tidalStats(sec, 0, func(ps *Points, p int) float64 { return ps.Bbp[p*r.NW()+wref] })
+		bbp, _, _ := r.tidalStats(sec, 0, func(ps *Points, p int) float64 { return ps.AtRef(ps.Bbp, p) })
 		for i, v := range bbp {
 			if v > s.BbpPeak {
 				s.BbpPeak, s.BbpPeakPosition = v, sec.Distance[i]
