@@ -6,6 +6,7 @@ import (
 	"math"
 	"os/exec"
 	"path/filepath"
+	"slices"
 	"strings"
 	"testing"
 
@@ -104,5 +105,49 @@ func TestFigures(t *testing.T) {
 	// each in SVG and PNG.
 	if len(paths) != 28 {
 		t.Errorf("%d figure files, want 28: %v", len(paths), paths)
+	}
+}
+
+// A logarithmic axis only where the values are positive and span a
+// decade (common practice: a log axis for data over orders of magnitude).
+func TestDecades(t *testing.T) {
+	for _, c := range []struct {
+		v    []float64
+		want bool
+	}{
+		{[]float64{1, 9.99}, false},
+		{[]float64{1, 10}, true},
+		{[]float64{200, 1000}, false},
+		{[]float64{0.05, 3}, true},
+		{[]float64{0, 10}, false},
+		{[]float64{-1, 100}, false},
+	} {
+		if got := decades(c.v); got != c.want {
+			t.Errorf("decades(%v) = %v, want %v", c.v, got, c.want)
+		}
+	}
+}
+
+// The spectra figures show at most maxSpectraLines stations, river end
+// first and sea end last, with the station nearest the turbidity maximum
+// among them.
+func TestSpectraStations(t *testing.T) {
+	r := runSmall(t)
+	st := r.spectraStations()
+	if len(st) > maxSpectraLines || len(st) < 3 {
+		t.Fatalf("%d stations drawn, want 3 to %d", len(st), maxSpectraLines)
+	}
+	order := r.stationOrder()
+	if st[0].j != order[len(order)-1] || st[len(st)-1].j != order[0] {
+		t.Errorf("first %.1f km, last %.1f km; want the river end then the sea end", r.Stations[st[0].j]/1e3, r.Stations[st[len(st)-1].j]/1e3)
+	}
+	etm := r.nearestStation(r.Summary.ETMPosition)
+	if !slices.ContainsFunc(st, func(s spectraStation) bool { return s.j == etm }) {
+		t.Errorf("station %.1f km nearest the turbidity maximum (%.1f km) is not drawn", r.Stations[etm]/1e3, r.Summary.ETMPosition/1e3)
+	}
+	for k := 1; k < len(st); k++ {
+		if !(r.Stations[st[k].j] < r.Stations[st[k-1].j]) {
+			t.Errorf("stations not from river to sea: %.1f km after %.1f km", r.Stations[st[k].j]/1e3, r.Stations[st[k-1].j]/1e3)
+		}
 	}
 }
