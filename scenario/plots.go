@@ -184,7 +184,7 @@ func (r *Result) Figures() []NamedFigure {
 				band.Lo[t], band.Hi[t] = min(lines[0].Y[t], lines[1].Y[t]), max(lines[0].Y[t], lines[1].Y[t])
 			}
 			base := "envelope_" + v.base[len("section_"):]
-			f := plot.Envelope(fmt.Sprintf("%s through the tide at %.1f km (near the turbidity maximum)", v.q.Name, r.Stations[j]/1e3), th, v.q, lines, band)
+			f := plot.Envelope(fmt.Sprintf("Through the tide at %.1f km, near the turbidity maximum", r.Stations[j]/1e3), th, v.q, lines, band)
 			f.X = plot.Quantity{Name: fmt.Sprintf("Time since the first output, %.1f days after the start", r.Times[0]/86400), Unit: "h"}
 			f.LogY = v.log && decades(band.Lo, band.Hi)
 			figs = append(figs, NamedFigure{base, f})
