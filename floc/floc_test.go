@@ -91,11 +91,11 @@ func TestBadInput(t *testing.T) {
 		want []string
 	}{
 		{"dimension high", func() error {
-			_, err := Fractal{4e-6, 2650, 3.2}.Aggregate(1e-4, 1020)
+			_, err := Fractal{PrimaryDiameter: 4e-6, PrimaryDensity: 2650, Dimension: 3.2}.Aggregate(1e-4, 1020)
 			return err
 		}, []string{"Dimension", "3.2", "(1, 3]"}},
 		{"dimension one", func() error {
-			_, err := Fractal{4e-6, 2650, 1}.Aggregate(1e-4, 1020)
+			_, err := Fractal{PrimaryDiameter: 4e-6, PrimaryDensity: 2650, Dimension: 1}.Aggregate(1e-4, 1020)
 			return err
 		}, []string{"Dimension", "= 1 ", "(1, 3]"}},
 		{"floc smaller than primary", func() error {

@@ -9,7 +9,8 @@ import (
 )
 
 // Attenuation and backscattering per unit mass of a 200 µm mineral floc at
-// 555 nm with the default (composite) method, and the VSF at 90° and 140°.
+// 555 nm with the default (composite) method, and the VSF at 90° and 140°,
+// for the default primaries (Sauter diameter 4 µm, σ_g = 2).
 func ExampleComposite() {
 	var ws optics.Workspace
 	d := 200e-6
@@ -27,7 +28,7 @@ func ExampleComposite() {
 	fmt.Printf("β*(90°) = %.2e, β*(140°) = %.2e m² sr⁻¹ g⁻¹\n", vsf[0]/g, vsf[1]/g)
 	fmt.Printf("phase shift ρ = %.1f\n", cs.PhaseShift)
 	// Output:
-	// c* = 0.324 m²/g, b_b* = 0.0106 m²/g, b_b/b = 0.0330
-	// β*(90°) = 4.93e-04, β*(140°) = 1.76e-03 m² sr⁻¹ g⁻¹
+	// c* = 0.324 m²/g, b_b* = 0.0081 m²/g, b_b/b = 0.0254
+	// β*(90°) = 9.56e-04, β*(140°) = 8.05e-04 m² sr⁻¹ g⁻¹
 	// phase shift ρ = 10.3
 }

@@ -32,6 +32,7 @@ func TestOnePrimaryIsMie(t *testing.T) {
 	mu := []float64{1, 0.5, 0, -0.5, -1}
 	for _, lam := range []float64{400e-9, 550e-9, 860e-9} {
 		p := problem(4e-6, lam)
+		p.Fractal.PrimaryGSD = 1 // identical primaries: the one-primary limit
 		x := mie.SizeParameter(4e-6, lam, 1.34)
 		e, err := mie.Sphere(x, mineral)
 		if err != nil {
@@ -104,6 +105,7 @@ func TestRDGAgainstOracle(t *testing.T) {
 		for _, df := range []float64{1.7, 2.0, 2.6} {
 			p := problem(d, 550e-9)
 			p.Fractal.Dimension = df
+			p.Fractal.PrimaryGSD = 1 // the oracle's single Mie primary
 			var ws Workspace
 			cs, err := FractalRDG{}.Evaluate(&ws, p, nil, nil)
 			if err != nil {
@@ -388,7 +390,7 @@ func TestRDGSmallAggregateLimit(t *testing.T) {
 	// An aggregate much smaller than the wavelength scatters coherently,
 	// C_sca → N²·C_sca,p, with a Guinier correction 1 − O((kR_g)²)
 	// (Sorensen 2001, §4: S(q) → 1 for qR_g ≪ 1), and absorbs N·C_abs,p.
-	f := floc.Fractal{PrimaryDiameter: 2e-9, PrimaryDensity: 2000, Dimension: 1.8}
+	f := floc.Fractal{PrimaryDiameter: 2e-9, PrimaryDensity: 2000, Dimension: 1.8, PrimaryGSD: 1}
 	p := Problem{Fractal: f, Diameter: 20e-9, Wavelength: 550e-9, MediumIndex: 1.34, Index: complex(1.5, 0.5)}
 	var ws Workspace
 	cs, err := FractalRDG{}.Evaluate(&ws, p, nil, nil)
