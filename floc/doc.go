@@ -15,6 +15,12 @@
 //	M   = ρ_s·φ·πD³/6 = N·ρ_s·πD_p³/6        dry mass
 //
 // n_f = 3 is a solid sphere; natural estuarine flocs have n_f ≈ 1.7–2.3.
+// Primaries may be polydisperse (log-normal with geometric standard
+// deviation Fractal.PrimaryGSD, default 2); D_p is then their Sauter
+// diameter D32, the size that keeps their surface per unit volume (and so
+// their geometric optical cross-section per unit mass and the floc's
+// permeability) equal to that of identical primaries. N then counts
+// primaries of that representative size; only floc/optics uses the spread.
 // Fractal.Aggregate evaluates these; Fractal.GyrationRadius gives the
 // radius of gyration of the radial mass profile r^(n_f−3) used by the optics.
 //

@@ -24,6 +24,7 @@ func runFloc(args []string, stdout, stderr io.Writer) int {
 	fs := flag.NewFlagSet("floc", flag.ContinueOnError)
 	fs.SetOutput(stderr)
 	primary := fs.Float64("primary-um", 4, "primary particle diameter, µm")
+	gsd := fs.Float64("primary-gsd", floc.DefaultPrimaryGSD, "geometric standard deviation of the log-normal primary sizes (1: identical primaries; -primary-um is then their Sauter diameter)")
 	density := fs.Float64("density", 2650, "primary grain density, kg m-3")
 	df := fs.Float64("df", 2, "fractal dimension n_f, in (1, 3]")
 	sizes := fs.String("sizes-um", "10,30,100,300,1000", "comma-separated floc diameters, µm")
@@ -71,14 +72,17 @@ func runFloc(args []string, stdout, stderr io.Writer) int {
 	if err != nil {
 		return fail(err)
 	}
-	fr := floc.Fractal{PrimaryDiameter: *primary * 1e-6, PrimaryDensity: *density, Dimension: *df}
+	fr := floc.Fractal{PrimaryDiameter: *primary * 1e-6, PrimaryDensity: *density, Dimension: *df, PrimaryGSD: *gsd}
+	if err := fr.Validate(); err != nil {
+		return fail(err)
+	}
 	st := floc.Settling{Shape: 1, HinderedExponent: *hindered}
 	rho, err := floc.WaterDensity(*sal, *temp)
 	if err != nil {
 		return fail(err)
 	}
 	t := table.Table{
-		Title: fmt.Sprintf("flocs of %g µm primaries, n_f = %g, method %s", *primary, *df, m.Name()),
+		Title: fmt.Sprintf("flocs of %g µm primaries (σ_g = %g), n_f = %g, method %s", *primary, fr.PrimarySpread(), *df, m.Name()),
 		Columns: []table.Column{
 			{Name: "diameter", Unit: "um"}, {Name: "primaries", Unit: "1"}, {Name: "solid_fraction", Unit: "1"}, {Name: "excess_density", Unit: "kg m-3"},
 			{Name: "settling_velocity", Unit: "mm s-1"}, {Name: "wavelength", Unit: "nm"},

@@ -79,7 +79,8 @@ func comparisonTable() (string, error) {
 		fmt.Fprintf(&out, "//\t"+format+"\n", args...)
 	}
 	line("")
-	line("primaries D_p = 4 µm, ρ_s = 2650 kg m⁻³, m = 1.17 + 0.0003i (relative to water, n_w = 1.34), n_f = 2")
+	line("primaries log-normal, Sauter diameter D_p = 4 µm, σ_g = %g, ρ_s = 2650 kg m⁻³,", f.PrimarySpread())
+	line("m = 1.17 + 0.0003i (relative to water, n_w = 1.34), n_f = 2")
 	line("c*, b*, b_b* per unit dry mass at 555 nm (m² g⁻¹); B̃ = b_b/b at 555 nm; η: b_b ∝ λ^−η fitted over 443–670 nm")
 	line("")
 	disp, err := row(&ws, FractalRDG{}, f, f.PrimaryDiameter)

@@ -1,6 +1,7 @@
 package optics
 
 import (
+	"fmt"
 	"math"
 	"testing"
 
@@ -324,6 +325,32 @@ func TestRDGPolydisperseAgainstOracle(t *testing.T) {
 		sca, bb := oracleRDGPoly(p)
 		if math.Abs(cs.Scattering/sca-1) > oracleTol || math.Abs(cs.Backscattering/bb-1) > oracleTol {
 			t.Errorf("D=%g: Csca %g oracle %g (%.2g); Cbb %g oracle %g (%.2g)", d, cs.Scattering, sca, cs.Scattering/sca-1, cs.Backscattering, bb, cs.Backscattering/bb-1)
+		}
+	}
+}
+
+// BenchmarkPrimaries is the once-per-wavelength cost of the primaries'
+// averaged cross-sections (all methods) and of the fractal method's node
+// table, for the default distribution and identical primaries. Each
+// iteration starts from an empty Workspace (its allocations are the cache).
+func BenchmarkPrimaries(b *testing.B) {
+	for _, c := range []struct {
+		name string
+		gsd  float64
+		m    Method
+	}{{"composite/gsd2", 2, Composite{}}, {"rdg/gsd2", 2, FractalRDG{}}, {"composite/gsd1", 1, Composite{}}, {"rdg/gsd1", 1, FractalRDG{}}} {
+		for _, lam := range []float64{400e-9, 860e-9} {
+			b.Run(fmt.Sprintf("%s/%.0fnm", c.name, lam*1e9), func(b *testing.B) {
+				p := problem(100e-6, lam)
+				p.Fractal.PrimaryGSD = c.gsd
+				b.ReportAllocs()
+				for b.Loop() {
+					var ws Workspace
+					if _, err := c.m.Evaluate(&ws, p, nil, nil); err != nil {
+						b.Fatal(err)
+					}
+				}
+			})
 		}
 	}
 }
