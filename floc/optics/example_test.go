@@ -28,7 +28,7 @@ func ExampleComposite() {
 	fmt.Printf("β*(90°) = %.2e, β*(140°) = %.2e m² sr⁻¹ g⁻¹\n", vsf[0]/g, vsf[1]/g)
 	fmt.Printf("phase shift ρ = %.1f\n", cs.PhaseShift)
 	// Output:
-	// c* = 0.324 m²/g, b_b* = 0.0081 m²/g, b_b/b = 0.0254
-	// β*(90°) = 9.56e-04, β*(140°) = 8.05e-04 m² sr⁻¹ g⁻¹
+	// c* = 0.312 m²/g, b_b* = 0.0078 m²/g, b_b/b = 0.0254
+	// β*(90°) = 9.22e-04, β*(140°) = 7.76e-04 m² sr⁻¹ g⁻¹
 	// phase shift ρ = 10.3
 }
