@@ -160,10 +160,18 @@ func (c Composite) Evaluate(ws *Workspace, p Problem, mu, diff []float64) (Cross
 // (C_abs unchanged: it is linear in the solid path to first order). For a
 // one-primary floc the area-weighted average of Q over d is exactly the
 // per-volume average the primaries get (subPoints), so both ends agree.
+// Validity: that of anomalous diffraction for the correction term (x ≫ 1,
+// |m_eff − 1| ≪ 1: flocs of more than a few primaries); for nearly solid
+// flocs of one or two primaries it is a first-order estimate of the size
+// average, of the ripple-free part only. Identical primaries (σ_g = 1): no
+// correction. Errors if the corrected extinction would not exceed the
+// absorption (not met in the tests' range of x ≥ 20).
 // Quadrature: midpoint rule on rayPhaseSub equal steps in z over ±3σ of the
-// area-weighted log-normal (σ = ln σ_g), renormalised; 96 steps put more
-// than four in each period 2π/ρ' of Q_ADA in ln ρ' up to ρ' ≈ 190.
-const rayPhaseSub = 96
+// area-weighted log-normal (σ = ln σ_g), renormalised. Measured against an
+// untruncated 20000-point reference (TestRayPhaseAverage): 1.0–1.4e-3 in
+// C_ext with 48 steps and the same with 96, so the ±3σ truncation, not the
+// step, sets the error; 48 ADA evaluations cost about 10 µs per floc.
+const rayPhaseSub = 48
 
 func rayPhaseCorrection(cs *CrossSections, p Problem, phi float64, rule MixingRule) error {
 	g := p.Fractal.PrimarySpread()

@@ -135,7 +135,7 @@ func TestKernelFewSubPointsSuffice(t *testing.T) {
 	const smoothTol = 2e-3
 	for _, m := range []Method{Composite{}, FractalRDG{}} {
 		for _, d0 := range []float64{4e-6, 30e-6, 300e-6} {
-			spec := kernelSpec(3, 2, 0)
+			spec := kernelSpec(3, 2, 1) // one worker: the primaries' averages are computed once
 			spec.Edges, _ = kernel.LogEdges(d0, d0*math.Exp(0.055*3), 3)
 			spec.Angles = nil
 			spec.SubStep, spec.MaxSub, spec.BackscatterSub = 0, 16, 0

@@ -399,6 +399,9 @@ func TestRayPhaseAverage(t *testing.T) {
 		if math.Abs(a.Extinction/want-1) > truncTol {
 			t.Errorf("D=%g λ=%g: C_ext %g, independent %g (%.2g)", c.d, c.lam, a.Extinction, want, a.Extinction/want-1)
 		}
+		if testing.Verbose() {
+			t.Logf("D=%g λ=%g: C_ext rule/independent − 1 = %.2g", c.d, c.lam, a.Extinction/want-1)
+		}
 		if math.Abs(a.Absorption/u.Absorption-1) > 1e-15 || math.Abs(a.Scattering+a.Absorption-a.Extinction) > 1e-12*a.Extinction {
 			t.Errorf("D=%g λ=%g: absorption changed or C_sca ≠ C_ext − C_abs", c.d, c.lam)
 		}
