@@ -98,6 +98,10 @@ func TestBadInput(t *testing.T) {
 			_, err := Fractal{PrimaryDiameter: 4e-6, PrimaryDensity: 2650, Dimension: 1}.Aggregate(1e-4, 1020)
 			return err
 		}, []string{"Dimension", "= 1 ", "(1, 3]"}},
+		{"primary spread", func() error {
+			_, err := Fractal{PrimaryDiameter: 4e-6, PrimaryDensity: 2650, Dimension: 2, PrimaryGSD: 0.5}.Aggregate(1e-4, 1020)
+			return err
+		}, []string{"PrimaryGSD", "0.5", "[1, 2.5]"}},
 		{"floc smaller than primary", func() error {
 			_, err := DefaultFractal.Aggregate(2e-6, 1020)
 			return err
@@ -559,5 +563,33 @@ func TestPublishedExampleTimeIntegration(t *testing.T) {
 	}
 	if math.Abs(d/91.5e-6-1) > threeFigures {
 		t.Errorf("D(1000 min) = %.4g µm, want 91.5", d*1e6)
+	}
+}
+
+func TestDefaultPrimarySpread(t *testing.T) {
+	// The default primaries against the clay-mineral sizes of the research
+	// note estuary-and-flocs.md §B1 ("median of about 1–2 µm, spread
+	// 0.1–10 µm"): count median in [1, 2] µm and ±3 standard deviations
+	// inside [0.1, 10] µm. Zero PrimaryGSD means the default; 1 is
+	// identical primaries (no log-normal).
+	f := DefaultFractal
+	f.PrimaryGSD = 0
+	if f.PrimarySpread() != DefaultPrimaryGSD {
+		t.Fatalf("PrimarySpread() = %g for PrimaryGSD 0", f.PrimarySpread())
+	}
+	l, err := f.PrimaryDistribution(1)
+	if err != nil {
+		t.Fatal(err)
+	}
+	lo, hi := l.Median/math.Pow(l.GSD, 3), l.Median*math.Pow(l.GSD, 3)
+	if l.Median < 1e-6 || l.Median > 2e-6 || lo < 0.1e-6 || hi > 10e-6 {
+		t.Errorf("count median %g m, ±3σ [%g, %g] m", l.Median, lo, hi)
+	}
+	// Structure does not depend on the spread (Kranenburg relations on D32).
+	a, _ := f.Aggregate(100e-6, 1020)
+	f.PrimaryGSD = 1
+	b, _ := f.Aggregate(100e-6, 1020)
+	if a != b {
+		t.Errorf("aggregate depends on the spread: %+v vs %+v", a, b)
 	}
 }
