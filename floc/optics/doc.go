@@ -105,7 +105,7 @@
 // one primary (of identical primaries) or a solid floc, conserves energy (∫VSF = C_sca, b_b < b < c),
 // and gives c* ≈ 0.31 m² g⁻¹ and b_b* ≈ 0.008 m² g⁻¹ for n_f = 2 mineral flocs
 // of any size, within the published ranges, with a b_b spectral slope
-// (η ≈ 0.24–0.31) close to the dispersed primaries'. Its limits: the near-forward
+// (η ≈ 0.24–0.30) close to the dispersed primaries'. Its limits: the near-forward
 // VSF (θ ≲ λ/D_p) is that of the primaries, not the much narrower
 // diffraction peak of the whole floc, so acceptance-angle corrections of
 // transmissometers are underestimated for large flocs; and for very open
@@ -129,9 +129,9 @@
 //
 //	composite
 //	  D (µm)      c*      b*      b_b*        B̃      η
-//	      10   0.327   0.323  5.45e-03  1.69e-02   0.31
-//	      30   0.317   0.314  7.42e-03  2.36e-02   0.24
-//	     100   0.313   0.310  7.87e-03  2.54e-02   0.29
+//	      10   0.323   0.319  5.44e-03  1.71e-02   0.30
+//	      30   0.317   0.313  7.42e-03  2.37e-02   0.24
+//	     100   0.313   0.310  7.87e-03  2.54e-02   0.28
 //	     300   0.312   0.309  7.83e-03  2.54e-02   0.29
 //	    1000   0.311   0.308  7.82e-03  2.54e-02   0.29
 //

@@ -364,15 +364,17 @@ func TestRayPhaseAverage(t *testing.T) {
 	// 0.0625σ, so
 	const truncTol = 3e-3 // relative, on C_ext
 	f := floc.DefaultFractal
-	ln, err := f.PrimaryDistribution(1)
-	if err != nil {
-		t.Fatal(err)
-	}
-	sg := math.Log(ln.GSD)
-	m2 := ln.PartialMoment(2, 0, math.Inf(1))
-	for _, c := range []struct{ d, lam float64 }{{100e-6, 400e-9}, {100e-6, 700e-9}, {1000e-6, 550e-9}} {
+	for _, c := range []struct{ d, lam, nf float64 }{{100e-6, 400e-9, 2}, {100e-6, 700e-9, 2}, {1000e-6, 550e-9, 2}, {30e-6, 550e-9, 2.4}} {
+		f.Dimension = c.nf
 		p := problem(c.d, c.lam)
+		p.Fractal = f
 		phi, _ := f.SolidFraction(c.d)
+		// The rays' log-normal (composite.go): Sauter diameter D32, squared
+		// coefficient of variation (e^(σ²) − 1)(1 − φ)/max(1, φD/D32).
+		s0 := math.Log(f.PrimarySpread())
+		sg := math.Sqrt(math.Log1p(math.Expm1(s0*s0) * (1 - phi) / max(1, phi*c.d/f.PrimaryDiameter)))
+		ln := psd.Lognormal{N: 1, Median: f.PrimaryDiameter * math.Exp(-2.5*sg*sg), GSD: math.Exp(sg)}
+		m2 := ln.PartialMoment(2, 0, math.Inf(1))
 		var ws Workspace
 		u, err := Composite{UniformPhase: true}.Evaluate(&ws, p, nil, nil)
 		if err != nil {
@@ -406,13 +408,16 @@ func TestRayPhaseAverage(t *testing.T) {
 			t.Errorf("D=%g λ=%g: absorption changed or C_sca ≠ C_ext − C_abs", c.d, c.lam)
 		}
 	}
-	// Identical primaries: no correction (limit).
-	p := problem(100e-6, 550e-9)
-	p.Fractal.PrimaryGSD = 1
-	var ws Workspace
-	u, _ := Composite{UniformPhase: true}.Evaluate(&ws, p, nil, nil)
-	a, _ := Composite{}.Evaluate(&ws, p, nil, nil)
-	if u != a {
-		t.Errorf("identical primaries: %+v vs %+v", a, u)
+	// Limits: identical primaries, and a solid floc (n_f = 3) of spread
+	// primaries, get no correction, so Composite is then exactly Mie.
+	for _, c := range []struct{ gsd, nf float64 }{{1, 2}, {2, 3}} {
+		p := problem(100e-6, 550e-9)
+		p.Fractal.PrimaryGSD, p.Fractal.Dimension = c.gsd, c.nf
+		var ws Workspace
+		u, _ := Composite{UniformPhase: true}.Evaluate(&ws, p, nil, nil)
+		a, _ := Composite{}.Evaluate(&ws, p, nil, nil)
+		if u != a {
+			t.Errorf("σ_g=%g n_f=%g: %+v vs %+v", c.gsd, c.nf, a, u)
+		}
 	}
 }
