@@ -61,6 +61,7 @@ func TestPrimaryAveragingConverged(t *testing.T) {
 			if math.Abs(got/ref-1) > truncTol {
 				t.Errorf("λ=%g %s: rule %.6g, reference %.6g (%.2g)", lam, name, got, ref, got/ref-1)
 			}
+			t.Logf("λ=%g %s: rule/reference − 1 = %.2g", lam, name, got/ref-1)
 		}
 		check("C_sca", c.csca, sca)
 		check("C_abs", c.cabs, abs)
