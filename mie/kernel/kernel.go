@@ -256,8 +256,26 @@ func Build(ev Evaluator, spec Spec) (*Table, error) {
 	if workers == 0 {
 		workers = runtime.GOMAXPROCS(0)
 	}
-	if workers > len(cells) {
-		workers = len(cells)
+	// With enough wavelengths, a worker takes all the bins of one
+	// wavelength at a time (largest first within it): evaluators that
+	// prepare per-wavelength tables (the floc package's primary-particle
+	// averages) then prepare each once instead of once per worker. With few
+	// wavelengths, cells are handed out one by one so that every worker has
+	// work.
+	unit := 1
+	if nl >= 4*workers {
+		unit = nb
+		sort.SliceStable(cells, func(a, b int) bool {
+			la, lb := cells[a]/nb, cells[b]/nb
+			if la != lb {
+				return t.Wavelengths[la] < t.Wavelengths[lb] // shortest wavelength (largest x) first
+			}
+			return false
+		})
+	}
+	units := len(cells) / unit
+	if workers > units {
+		workers = units
 	}
 	var next atomic.Int64
 	errs := make([]error, len(cells)) // per cell: deterministic choice of the error to report
@@ -271,12 +289,13 @@ func Build(ev Evaluator, spec Spec) (*Table, error) {
 			acc := make([]float64, na)
 			for {
 				k := int(next.Add(1)) - 1
-				if k >= len(cells) {
+				if k >= units {
 					return
 				}
-				c := cells[k]
-				if err := t.fill(wk, &s, acc, mu, p, c); err != nil {
-					errs[c] = err
+				for _, c := range cells[k*unit : (k+1)*unit] {
+					if err := t.fill(wk, &s, acc, mu, p, c); err != nil {
+						errs[c] = err
+					}
 				}
 			}
 		}()
