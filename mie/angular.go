@@ -9,21 +9,48 @@ import "math"
 // unpolarised light is −S12/S11.
 type Element struct{ S11, S12, S33, S34 float64 }
 
+// angTerm holds the per-term constants of the angular sums for the particle
+// held: A_n = (2n+1)/(n(n+1))·a_n, B_n likewise, and the coefficients of
+// the π_n recurrence, so that the loop over terms has no division.
+type angTerm struct {
+	ar, ai, br, bi float64 // A_n, B_n
+	n, n1          float64 // n, n+1
+	c1, c2         float64 // (2n+1)/n, (n+1)/n
+}
+
+// prepareAngular fills s.ang once per particle.
+func (s *Solver) prepareAngular() {
+	if s.angReady {
+		return
+	}
+	s.ang = grow(s.ang, s.n)
+	for n := 1; n <= s.n; n++ {
+		fn := float64(n)
+		f := (2*fn + 1) / (fn * (fn + 1))
+		a, b := s.a[n-1], s.b[n-1]
+		s.ang[n-1] = angTerm{f * real(a), f * imag(a), f * real(b), f * imag(b), fn, fn + 1, (2*fn + 1) / fn, (fn + 1) / fn}
+	}
+	s.angReady = true
+}
+
 // angularSums evaluates S1 and S2 at mu = cos θ from the held coefficients
 // with the angular functions π_n, τ_n by upward recurrence
 // (Bohren & Huffman 1983, eqs. 4.46–4.47), which is stable.
 func (s *Solver) angularSums(mu float64) (s1, s2 complex128) {
+	s.prepareAngular()
 	pi0, pi1 := 0.0, 1.0
-	for n := 1; n <= s.n; n++ {
-		fn := float64(n)
-		tau := fn*mu*pi1 - (fn+1)*pi0
-		f := complex((2*fn+1)/(fn*(fn+1)), 0)
-		an, bn := s.a[n-1]*f, s.b[n-1]*f
-		s1 += an*complex(pi1, 0) + bn*complex(tau, 0)
-		s2 += an*complex(tau, 0) + bn*complex(pi1, 0)
-		pi0, pi1 = pi1, ((2*fn+1)*mu*pi1-(fn+1)*pi0)/fn
+	var s1r, s1i, s2r, s2i float64
+	for i := range s.ang {
+		t := &s.ang[i]
+		mp := mu * pi1
+		tau := t.n*mp - t.n1*pi0
+		s1r += t.ar*pi1 + t.br*tau
+		s1i += t.ai*pi1 + t.bi*tau
+		s2r += t.ar*tau + t.br*pi1
+		s2i += t.ai*tau + t.bi*pi1
+		pi0, pi1 = pi1, t.c1*mp-t.c2*pi0
 	}
-	return s1, s2
+	return complex(s1r, s1i), complex(s2r, s2i)
 }
 
 func (s *Solver) mustHold() {

@@ -115,3 +115,20 @@ func BenchmarkBackCrossover(b *testing.B) {
 		})
 	}
 }
+
+// BenchmarkMatrix evaluates the scattering matrix at 1000 angles for a
+// solved sphere (x = 100); the cost is per angle and term.
+func BenchmarkMatrix(b *testing.B) {
+	var s Solver
+	s.Sphere(100, 1.17+0.001i)
+	mu := make([]float64, 1000)
+	for i := range mu {
+		mu[i] = math.Cos(math.Pi * float64(i) / 999)
+	}
+	el := make([]Element, len(mu))
+	b.ReportAllocs()
+	for b.Loop() {
+		s.Matrix(mu, el)
+	}
+	b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(len(mu)*s.n), "ns/angle/term")
+}

@@ -21,8 +21,9 @@ func TestOpticalTheorem(t *testing.T) {
 		if r := relErr(4*real(s1[0])/(c.x*c.x), e.Qext); r > tol {
 			t.Errorf("x=%g m=%v: optical theorem off by %.1e", c.x, c.m, r)
 		}
-		if s1[0] != s2[0] {
-			t.Errorf("x=%g: S1(0) ≠ S2(0)", c.x)
+		// S1(0°) = S2(0°) exactly in theory; the two sums round differently.
+		if d := cmplx.Abs(s1[0]-s2[0]) / cmplx.Abs(s1[0]); d > 1e-14 {
+			t.Errorf("x=%g: S1(0) and S2(0) differ by %.1e", c.x, d)
 		}
 		if math.Abs(e.Qext-e.Qsca-e.Qabs) > 1e-15*e.Qext {
 			t.Errorf("x=%g: Qext ≠ Qsca + Qabs", c.x)

@@ -50,16 +50,19 @@ func (e Efficiencies) BackscatteringRatio() float64 {
 // series coefficients, and BackHemisphere, Amplitudes, Matrix and
 // PhaseFunction describe that particle.
 type Solver struct {
-	x     float64      // outer size parameter of the last particle
-	qsca  float64      // its Qsca
-	n     int          // number of terms held in a, b
-	a, b  []complex128 // a_n, b_n for n = 1..n at index n-1
-	d     []complex128 // D_n(mx) (homogeneous) or H^a_n (coated), index n
-	hb    []complex128 // H^b_n for the coated sphere, index n
-	dc    []complex128 // scratch: D_n(m1·x1) for the coated sphere
-	d2    []complex128 // scratch: D_n(m2·x1) for the coated sphere
-	buf   []complex128 // workspace of BackHemisphere
-	valid bool
+	x    float64      // outer size parameter of the last particle
+	qsca float64      // its Qsca
+	n    int          // number of terms held in a, b
+	a, b []complex128 // a_n, b_n for n = 1..n at index n-1
+	d    []complex128 // D_n(mx) (homogeneous) or H^a_n (coated), index n
+	hb   []complex128 // H^b_n for the coated sphere, index n
+	dc   []complex128 // scratch: D_n(m1·x1) for the coated sphere
+	d2   []complex128 // scratch: D_n(m2·x1) for the coated sphere
+	buf  []complex128 // workspace of BackHemisphere
+	ang  []angTerm    // per-term constants of the angular sums
+	// angReady says ang describes the particle held.
+	angReady bool
+	valid    bool
 }
 
 // seriesLength returns the number of series terms for outer size parameter
@@ -275,7 +278,7 @@ func (s *Solver) finish(x float64, m complex128, ha, hb []complex128, nstop int,
 	if !finite(e.Qext, e.Qsca, e.Qabs, e.Qback, e.G) {
 		return Efficiencies{}, errors.New("mie: series produced a non-finite result (please report the inputs)")
 	}
-	s.x, s.qsca, s.n, s.valid = x, e.Qsca, nstop, true
+	s.x, s.qsca, s.n, s.valid, s.angReady = x, e.Qsca, nstop, true, false
 	return e, nil
 }
 
