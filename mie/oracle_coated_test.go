@@ -47,17 +47,7 @@ func bigSinCosC(z bc) (s, c bc) {
 
 // bigRiccati returns ψ_n, ψ_n', χ_n, χ_n' of z for n = 0..nmax.
 func bigRiccati(z bc, nmax int) (psi, dpsi, chi, dchi []bc) {
-	az := math.Hypot(func() float64 { f, _ := z.r.Float64(); return f }(), func() float64 { f, _ := z.i.Float64(); return f }())
-	nmx := int(math.Max(float64(nmax), az)+30*math.Cbrt(az)) + 60
-	d := make([]bc, nmax+1)
-	dn := bcf(0, 0)
-	for n := nmx; n >= 1; n-- {
-		nz := bc{bf(float64(n)), bf(0)}.quo(z)
-		dn = nz.sub(bcf(1, 0).quo(dn.add(nz)))
-		if n-1 <= nmax {
-			d[n-1] = dn
-		}
-	}
+	d := bigLogDerivative(z, nmax)
 	s, c := bigSinCosC(z)
 	psi, dpsi = make([]bc, nmax+1), make([]bc, nmax+1)
 	chi, dchi = make([]bc, nmax+1), make([]bc, nmax+1)

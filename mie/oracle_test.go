@@ -109,6 +109,27 @@ func bigPi() *big.Float {
 	return p
 }
 
+// bigLogDerivative returns D_n(z) = ψ_n'(z)/ψ_n(z) for n = 0..nmax by
+// downward recurrence started with D = 0 far above the turning point
+// (|z| + 30|z|^(1/3) + 60, where the starting error is damped far below
+// 256-bit precision).
+func bigLogDerivative(z bc, nmax int) []bc {
+	zr, _ := z.r.Float64()
+	zi, _ := z.i.Float64()
+	az := math.Hypot(zr, zi)
+	nmx := int(math.Max(float64(nmax), az)+30*math.Cbrt(az)) + 60
+	d := make([]bc, nmax+1)
+	dn := bcf(0, 0)
+	for n := nmx; n >= 1; n-- {
+		nz := bc{bf(float64(n)), bf(0)}.quo(z)
+		dn = nz.sub(bcf(1, 0).quo(dn.add(nz)))
+		if n-1 <= nmax {
+			d[n-1] = dn
+		}
+	}
+	return d
+}
+
 type oracleResult struct {
 	qext, qsca, qback, g float64
 	a, b                 []complex128
@@ -119,18 +140,7 @@ func oracleSphere(x float64, m complex128) oracleResult {
 	nstop := seriesLength(x) + 40
 	bx := bf(x)
 	mm := bcf(real(m), imag(m))
-	z := mm.mul(bc{bx, bf(0)})
-	az := math.Hypot(real(m)*x, imag(m)*x)
-	nmx := int(math.Max(float64(nstop), az)+30*math.Cbrt(az)) + 60
-	d := make([]bc, nstop+1)
-	dn := bcf(0, 0)
-	for n := nmx; n >= 1; n-- {
-		nz := bc{bf(float64(n)), bf(0)}.quo(z)
-		dn = nz.sub(bcf(1, 0).quo(dn.add(nz)))
-		if n-1 <= nstop {
-			d[n-1] = dn
-		}
-	}
+	d := bigLogDerivative(mm.mul(bc{bx, bf(0)}), nstop)
 	sinx, cosx := bigSinCos(bx)
 	psi0, psi1 := cosx, sinx
 	chi0, chi1 := new(big.Float).Neg(sinx), cosx
