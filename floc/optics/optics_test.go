@@ -128,8 +128,6 @@ func oracleRDG(p Problem) (sca, bb float64) {
 	k := 2 * math.Pi * p.MediumIndex / p.Wavelength
 	n := math.Pow(p.Diameter/p.Fractal.PrimaryDiameter, p.Fractal.Dimension)
 	rg := p.Fractal.GyrationRadius(p.Diameter)
-	xs, ws := make([]float64, 8), make([]float64, 8)
-	quad.Legendre{}.FixedLocations(xs, ws, 0, 1)
 	mu := make([]float64, 1)
 	el := make([]mie.Element, 1)
 	f := func(th float64) float64 {
@@ -139,31 +137,40 @@ func oracleRDG(p Problem) (sca, bb float64) {
 		sn := 1/n + (1-1/n)*FisherBurford.Value(q*rg, p.Fractal.Dimension)
 		return 2 * math.Pi * math.Sin(th) * n * n * el[0].S11 / (k * k) * sn
 	}
-	const panels = 4000
+	return integrateTheta(f, 4000)
+}
+
+// integrateTheta integrates f(θ) dθ over 1e-9 rad to π by composite 8-node
+// Gauss–Legendre: panels uniform in ln θ up to 0.1 rad, then panels uniform
+// in θ over 0.1 rad to π/2 and over π/2 to π. It returns the whole integral
+// and the part over π/2 to π (the backward hemisphere).
+func integrateTheta(f func(th float64) float64, panels int) (total, back float64) {
+	xs, ws := make([]float64, 8), make([]float64, 8)
+	quad.Legendre{}.FixedLocations(xs, ws, 0, 1)
 	a, b := math.Log(1e-9), math.Log(0.1)
 	for i := range panels {
-		t0 := a + (b-a)*float64(i)/panels
-		t1 := a + (b-a)*float64(i+1)/panels
+		t0 := a + (b-a)*float64(i)/float64(panels)
+		t1 := a + (b-a)*float64(i+1)/float64(panels)
 		for j := range 8 {
 			lt := t0 + xs[j]*(t1-t0)
-			sca += ws[j] * (t1 - t0) * math.Exp(lt) * f(math.Exp(lt))
+			total += ws[j] * (t1 - t0) * math.Exp(lt) * f(math.Exp(lt))
 		}
 	}
 	for _, r := range [][2]float64{{0.1, math.Pi / 2}, {math.Pi / 2, math.Pi}} {
 		for i := range panels {
-			t0 := r[0] + (r[1]-r[0])*float64(i)/panels
-			t1 := r[0] + (r[1]-r[0])*float64(i+1)/panels
+			t0 := r[0] + (r[1]-r[0])*float64(i)/float64(panels)
+			t1 := r[0] + (r[1]-r[0])*float64(i+1)/float64(panels)
 			for j := range 8 {
 				th := t0 + xs[j]*(t1-t0)
 				v := ws[j] * (t1 - t0) * f(th)
-				sca += v
+				total += v
 				if r[0] > 1 {
-					bb += v
+					back += v
 				}
 			}
 		}
 	}
-	return sca, bb
+	return total, back
 }
 
 func TestVSFIntegratesToScattering(t *testing.T) {

@@ -5,8 +5,6 @@ import (
 	"math"
 	"testing"
 
-	"gonum.org/v1/gonum/integrate/quad"
-
 	"github.com/murk-optics/murk/floc"
 	"github.com/murk-optics/murk/mie"
 	"github.com/murk-optics/murk/mie/psd"
@@ -265,8 +263,6 @@ func oracleRDGPoly(p Problem) (sca, bb float64) {
 	k := 2 * math.Pi * p.MediumIndex / p.Wavelength
 	n := math.Pow(p.Diameter/p.Fractal.PrimaryDiameter, p.Fractal.Dimension)
 	rg := p.Fractal.GyrationRadius(p.Diameter)
-	xs, ws := make([]float64, 8), make([]float64, 8)
-	quad.Legendre{}.FixedLocations(xs, ws, 0, 1)
 	mu := make([]float64, 1)
 	el := make([]mie.Element, 1)
 	f := func(th float64) float64 {
@@ -279,31 +275,7 @@ func oracleRDGPoly(p Problem) (sca, bb float64) {
 		q := 2 * k * math.Sin(th/2)
 		return 2 * math.Pi * math.Sin(th) * s11 / (k * k) * FisherBurford.Value(q*rg, p.Fractal.Dimension)
 	}
-	const panels = 300
-	var coh, cohB float64
-	a, b := math.Log(1e-9), math.Log(0.1)
-	for i := range panels {
-		t0 := a + (b-a)*float64(i)/panels
-		t1 := a + (b-a)*float64(i+1)/panels
-		for j := range 8 {
-			lt := t0 + xs[j]*(t1-t0)
-			coh += ws[j] * (t1 - t0) * math.Exp(lt) * f(math.Exp(lt))
-		}
-	}
-	for _, r := range [][2]float64{{0.1, math.Pi / 2}, {math.Pi / 2, math.Pi}} {
-		for i := range panels {
-			t0 := r[0] + (r[1]-r[0])*float64(i)/panels
-			t1 := r[0] + (r[1]-r[0])*float64(i+1)/panels
-			for j := range 8 {
-				th := t0 + xs[j]*(t1-t0)
-				v := ws[j] * (t1 - t0) * f(th)
-				coh += v
-				if r[0] > 1 {
-					cohB += v
-				}
-			}
-		}
-	}
+	coh, cohB := integrateTheta(f, 300)
 	self := 1 / n
 	return n * n * (self*csca + (1-self)*coh), n * n * (self*cbb + (1-self)*cohB)
 }
