@@ -27,6 +27,32 @@ func lastCycle(t *testing.T, res *Result) Snapshot {
 	return res.Cycles[len(res.Cycles)-1]
 }
 
+// runPair runs a and b without settling, failing the test on an error.
+func runPair(t *testing.T, a, b Config) (ra, rb *Result) {
+	t.Helper()
+	ra, err := Run(a, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	rb, err = Run(b, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return ra, rb
+}
+
+// maxSalinityDifference is the largest |Δs| (PSU) between two snapshots over
+// all layers and cells.
+func maxSalinityDifference(a, b Snapshot) float64 {
+	worst := 0.0
+	for k := 0; k < Layers; k++ {
+		for i := range a.Salinity[k] {
+			worst = math.Max(worst, math.Abs(a.Salinity[k][i]-b.Salinity[k][i]))
+		}
+	}
+	return worst
+}
+
 // TestKnudsenReference: Q_R = 1000 m³/s, s_in = 32.5, s_out = 27.5 gives
 // Q_out = 6500 and Q_in = 5500 m³/s (REFERENCES.md; exact algebra of Knudsen 1900).
 func TestKnudsenReference(t *testing.T) {
@@ -231,21 +257,9 @@ func TestPeriodicState(t *testing.T) {
 	a := channel(1000)
 	b := channel(1000)
 	b.Run.InitialSalinity = 32
-	ra, err := Run(a, nil)
-	if err != nil {
-		t.Fatal(err)
-	}
-	rb, err := Run(b, nil)
-	if err != nil {
-		t.Fatal(err)
-	}
+	ra, rb := runPair(t, a, b)
 	ca, cb := lastCycle(t, ra), lastCycle(t, rb)
-	worst := 0.0
-	for k := 0; k < Layers; k++ {
-		for i := range ca.Salinity[k] {
-			worst = math.Max(worst, math.Abs(ca.Salinity[k][i]-cb.Salinity[k][i]))
-		}
-	}
+	worst := maxSalinityDifference(ca, cb)
 	t.Logf("largest salinity difference after 40 d: %.3g PSU", worst)
 	if worst > tol {
 		t.Errorf("periodic states differ by %.3g PSU > %g", worst, tol)

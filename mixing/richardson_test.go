@@ -189,21 +189,9 @@ func TestPeriodicStateStratified(t *testing.T) {
 	a.Run.Duration = 60 * 86400
 	b := a
 	b.Run.InitialSalinity = 32
-	ra, err := Run(a, nil)
-	if err != nil {
-		t.Fatal(err)
-	}
-	rb, err := Run(b, nil)
-	if err != nil {
-		t.Fatal(err)
-	}
+	ra, rb := runPair(t, a, b)
 	ca, cb := lastCycle(t, ra), lastCycle(t, rb)
-	worst := 0.0
-	for k := 0; k < Layers; k++ {
-		for i := range ca.Salinity[k] {
-			worst = math.Max(worst, math.Abs(ca.Salinity[k][i]-cb.Salinity[k][i]))
-		}
-	}
+	worst := maxSalinityDifference(ca, cb)
 	t.Logf("intrusion %.1f and %.1f km, stratification %.2f; largest salinity difference %.3g PSU",
 		ca.Diagnostics.IntrusionLength/1e3, cb.Diagnostics.IntrusionLength/1e3, ca.Diagnostics.MeanStratification, worst)
 	if worst > tol {
