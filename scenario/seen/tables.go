@@ -5,6 +5,7 @@ import (
 	"bytes"
 	_ "embed"
 	"fmt"
+	"iter"
 	"strconv"
 	"strings"
 )
@@ -41,20 +42,7 @@ const (
 // error and panics at package initialisation.
 func mustTable(data []byte, cols int) [][]float64 {
 	out := make([][]float64, cols)
-	sc := bufio.NewScanner(bytes.NewReader(data))
-	header := true
-	line := 0
-	for sc.Scan() {
-		line++
-		t := strings.TrimSpace(sc.Text())
-		if t == "" || strings.HasPrefix(t, "#") {
-			continue
-		}
-		if header {
-			header = false
-			continue
-		}
-		f := strings.Split(t, ",")
+	for line, f := range dataRows(data) {
 		if len(f) < cols {
 			panic(fmt.Sprintf("seen: embedded table line %d: %d fields, want %d", line, len(f), cols))
 		}
@@ -69,19 +57,10 @@ func mustTable(data []byte, cols int) [][]float64 {
 	return out
 }
 
+// mustFU parses the Forel-Ule threshold table (class, lower nm, upper nm),
+// panicking like mustTable on a malformed embedded file.
 func mustFU(data []byte) (lower, upper []float64) {
-	sc := bufio.NewScanner(bytes.NewReader(data))
-	header := true
-	for sc.Scan() {
-		t := strings.TrimSpace(sc.Text())
-		if t == "" || strings.HasPrefix(t, "#") {
-			continue
-		}
-		if header {
-			header = false
-			continue
-		}
-		f := strings.Split(t, ",")
+	for _, f := range dataRows(data) {
 		cls, err1 := strconv.Atoi(f[0])
 		lo, err2 := strconv.ParseFloat(f[1], 64)
 		hi, err3 := strconv.ParseFloat(f[2], 64)
@@ -92,4 +71,29 @@ func mustFU(data []byte) (lower, upper []float64) {
 		upper = append(upper, hi)
 	}
 	return lower, upper
+}
+
+// dataRows yields the data rows of an embedded CSV as comma-separated fields
+// (not trimmed), with the 1-based line number in the file. Blank lines, '#'
+// comment lines and the first remaining row (the column header) are skipped.
+func dataRows(data []byte) iter.Seq2[int, []string] {
+	return func(yield func(int, []string) bool) {
+		sc := bufio.NewScanner(bytes.NewReader(data))
+		header := true
+		line := 0
+		for sc.Scan() {
+			line++
+			t := strings.TrimSpace(sc.Text())
+			if t == "" || strings.HasPrefix(t, "#") {
+				continue
+			}
+			if header {
+				header = false
+				continue
+			}
+			if !yield(line, strings.Split(t, ",")) {
+				return
+			}
+		}
+	}
 }
