@@ -62,14 +62,20 @@ func (e *encoder) name(s string) {
 	e.pad()
 }
 
-func (e *encoder) attrs(attrs []Attr) {
-	if len(attrs) == 0 {
+// list starts a header list of n items: tag and nelems, or ABSENT
+// (ZERO ZERO) when n is 0.
+func (e *encoder) list(tag uint32, n int) {
+	if n == 0 {
 		e.u32(0)
 		e.u32(0)
 		return
 	}
-	e.u32(tagAttribute)
-	e.u32(uint32(len(attrs)))
+	e.u32(tag)
+	e.u32(uint32(n))
+}
+
+func (e *encoder) attrs(attrs []Attr) {
+	e.list(tagAttribute, len(attrs))
 	for _, a := range attrs {
 		e.name(a.Name)
 		e.u32(uint32(a.Type()))
@@ -108,47 +114,35 @@ func (h *Header) encode(L *layout) []byte {
 	e.b = append(e.b, 'C', 'D', 'F', byte(h.Format))
 	e.u32(uint32(h.NumRecs))
 	dimIndex := make(map[string]int, len(h.Dims))
-	if len(h.Dims) == 0 {
-		e.u32(0)
-		e.u32(0)
-	} else {
-		e.u32(tagDimension)
-		e.u32(uint32(len(h.Dims)))
-		for i, d := range h.Dims {
-			dimIndex[d.Name] = i
-			e.name(d.Name)
-			if d.Unlimited {
-				e.u32(0)
-			} else {
-				e.u32(uint32(d.Len))
-			}
+	e.list(tagDimension, len(h.Dims))
+	for i, d := range h.Dims {
+		dimIndex[d.Name] = i
+		e.name(d.Name)
+		if d.Unlimited {
+			e.u32(0)
+		} else {
+			e.u32(uint32(d.Len))
 		}
 	}
 	e.attrs(h.Attrs)
-	if len(h.Vars) == 0 {
-		e.u32(0)
-		e.u32(0)
-	} else {
-		e.u32(tagVariable)
-		e.u32(uint32(len(h.Vars)))
-		for i, v := range h.Vars {
-			e.name(v.Name)
-			e.u32(uint32(len(v.Dims)))
-			for _, dn := range v.Dims {
-				e.u32(uint32(dimIndex[dn]))
-			}
-			e.attrs(v.Attrs)
-			e.u32(uint32(v.Type))
-			vs := L.vsize[i]
-			if vs > maxVsize {
-				vs = maxUint32
-			}
-			e.u32(uint32(vs))
-			if h.Format == CDF2 {
-				e.u64(uint64(L.begin[i]))
-			} else {
-				e.u32(uint32(L.begin[i]))
-			}
+	e.list(tagVariable, len(h.Vars))
+	for i, v := range h.Vars {
+		e.name(v.Name)
+		e.u32(uint32(len(v.Dims)))
+		for _, dn := range v.Dims {
+			e.u32(uint32(dimIndex[dn]))
+		}
+		e.attrs(v.Attrs)
+		e.u32(uint32(v.Type))
+		vs := L.vsize[i]
+		if vs > maxVsize {
+			vs = maxUint32
+		}
+		e.u32(uint32(vs))
+		if h.Format == CDF2 {
+			e.u64(uint64(L.begin[i]))
+		} else {
+			e.u32(uint32(L.begin[i]))
 		}
 	}
 	return e.b
