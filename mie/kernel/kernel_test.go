@@ -33,6 +33,17 @@ func (w *geoWorker) Eval(r Request, s *Sample) error {
 	return nil
 }
 
+// buildGeometric builds the table of geometric{} for spec, failing the
+// test on an error.
+func buildGeometric(t *testing.T, spec Spec) *Table {
+	t.Helper()
+	tab, err := Build(geometric{}, spec)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return tab
+}
+
 func testSpec() Spec {
 	edges, _ := LogEdges(0.5e-6, 50e-6, 40)
 	return Spec{
@@ -48,10 +59,7 @@ func testSpec() Spec {
 // ln D has relative error ≈ (h/S)²·p²/24 for C ∝ D^p, h = ln(hi/lo).
 func TestBinAverage(t *testing.T) {
 	spec := testSpec()
-	tab, err := Build(geometric{}, spec)
-	if err != nil {
-		t.Fatal(err)
-	}
+	tab := buildGeometric(t, spec)
 	nb := tab.NBins()
 	for l := range tab.Wavelengths {
 		for i := 0; i < nb; i++ {
@@ -132,10 +140,7 @@ func TestBackscatterSub(t *testing.T) {
 	spec.Workers = 1
 	spec.BackscatterSub = 4
 	spec.BackscatterX = 1 // cap from x = 1 on, so the test grid exercises it
-	tab, err := Build(geometric{}, spec)
-	if err != nil {
-		t.Fatal(err)
-	}
+	tab := buildGeometric(t, spec)
 	nb := tab.NBins()
 	for l := range tab.Wavelengths {
 		for i := 0; i < nb; i++ {
@@ -151,10 +156,7 @@ func TestBackscatterSub(t *testing.T) {
 }
 
 func TestEvaluate(t *testing.T) {
-	tab, err := Build(geometric{}, testSpec())
-	if err != nil {
-		t.Fatal(err)
-	}
+	tab := buildGeometric(t, testSpec())
 	nb := tab.NBins()
 	num := make([]float64, nb)
 	for i := range num {
