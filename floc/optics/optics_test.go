@@ -106,17 +106,25 @@ func TestRDGAgainstOracle(t *testing.T) {
 			p := problem(d, 550e-9)
 			p.Fractal.Dimension = df
 			p.Fractal.PrimaryGSD = 1 // the oracle's single Mie primary
-			var ws Workspace
-			cs, err := FractalRDG{}.Evaluate(&ws, p, nil, nil)
-			if err != nil {
-				t.Fatal(err)
-			}
-			sca, bb := oracleRDG(p)
+			cs, sca, bb := rdgAndOracle(t, p, oracleRDG)
 			if math.Abs(cs.Scattering/sca-1) > oracleTol || math.Abs(cs.Backscattering/bb-1) > oracleTol {
 				t.Errorf("D=%g D_f=%g: Csca %g oracle %g; Cbb %g oracle %g", d, df, cs.Scattering, sca, cs.Backscattering, bb)
 			}
 		}
 	}
+}
+
+// rdgAndOracle evaluates FractalRDG for p and returns its cross-sections
+// with the oracle's scattering and backscattering cross-sections, m².
+func rdgAndOracle(t *testing.T, p Problem, oracle func(Problem) (sca, bb float64)) (cs CrossSections, sca, bb float64) {
+	t.Helper()
+	var ws Workspace
+	cs, err := FractalRDG{}.Evaluate(&ws, p, nil, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	sca, bb = oracle(p)
+	return cs, sca, bb
 }
 
 func oracleRDG(p Problem) (sca, bb float64) {

@@ -290,12 +290,7 @@ func TestRDGPolydisperseAgainstOracle(t *testing.T) {
 	for _, d := range []float64{10e-6, 300e-6} {
 		p := problem(d, 550e-9)
 		p.Fractal.PrimaryGSD = 1.5
-		var ws Workspace
-		cs, err := FractalRDG{}.Evaluate(&ws, p, nil, nil)
-		if err != nil {
-			t.Fatal(err)
-		}
-		sca, bb := oracleRDGPoly(p)
+		cs, sca, bb := rdgAndOracle(t, p, oracleRDGPoly)
 		if math.Abs(cs.Scattering/sca-1) > oracleTol || math.Abs(cs.Backscattering/bb-1) > oracleTol {
 			t.Errorf("D=%g: Csca %g oracle %g (%.2g); Cbb %g oracle %g (%.2g)", d, cs.Scattering, sca, cs.Scattering/sca-1, cs.Backscattering, bb, cs.Backscattering/bb-1)
 		}
