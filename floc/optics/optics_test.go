@@ -127,15 +127,23 @@ func rdgAndOracle(t *testing.T, p Problem, oracle func(Problem) (sca, bb float64
 	return cs, sca, bb
 }
 
+// oracleAggregate returns the oracles' aggregate quantities for p: the
+// wavenumber in the medium k = 2πn_m/λ (m⁻¹), the number of primaries
+// N = (D/d_p)^D_f and the radius of gyration R_g (m).
+func oracleAggregate(p Problem) (k, n, rg float64) {
+	k = 2 * math.Pi * p.MediumIndex / p.Wavelength
+	n = math.Pow(p.Diameter/p.Fractal.PrimaryDiameter, p.Fractal.Dimension)
+	rg = p.Fractal.GyrationRadius(p.Diameter)
+	return k, n, rg
+}
+
 func oracleRDG(p Problem) (sca, bb float64) {
 	var s mie.Solver
 	xp := mie.SizeParameter(p.Fractal.PrimaryDiameter, p.Wavelength, p.MediumIndex)
 	if _, err := s.Sphere(xp, p.Index); err != nil {
 		panic(err)
 	}
-	k := 2 * math.Pi * p.MediumIndex / p.Wavelength
-	n := math.Pow(p.Diameter/p.Fractal.PrimaryDiameter, p.Fractal.Dimension)
-	rg := p.Fractal.GyrationRadius(p.Diameter)
+	k, n, rg := oracleAggregate(p)
 	mu := make([]float64, 1)
 	el := make([]mie.Element, 1)
 	f := func(th float64) float64 {

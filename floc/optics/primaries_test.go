@@ -260,9 +260,7 @@ func oracleRDGPoly(p Problem) (sca, bb float64) {
 		csca += ef.Qsca * a
 		cbb += s.BackHemisphere() * a
 	}
-	k := 2 * math.Pi * p.MediumIndex / p.Wavelength
-	n := math.Pow(p.Diameter/p.Fractal.PrimaryDiameter, p.Fractal.Dimension)
-	rg := p.Fractal.GyrationRadius(p.Diameter)
+	k, n, rg := oracleAggregate(p)
 	mu := make([]float64, 1)
 	el := make([]mie.Element, 1)
 	f := func(th float64) float64 {
