@@ -1,13 +1,12 @@
 package seen
 
 import (
-	"bufio"
-	"bytes"
 	_ "embed"
 	"fmt"
-	"iter"
 	"strconv"
 	"strings"
+
+	"github.com/murk-optics/murk/scenario/csvrows"
 )
 
 // The tables below are published measured or standard values, embedded with
@@ -42,7 +41,7 @@ const (
 // error and panics at package initialisation.
 func mustTable(data []byte, cols int) [][]float64 {
 	out := make([][]float64, cols)
-	for line, f := range dataRows(data) {
+	for line, f := range csvrows.Rows(data) {
 		if len(f) < cols {
 			panic(fmt.Sprintf("seen: embedded table line %d: %d fields, want %d", line, len(f), cols))
 		}
@@ -60,7 +59,7 @@ func mustTable(data []byte, cols int) [][]float64 {
 // mustFU parses the Forel-Ule threshold table (class, lower nm, upper nm),
 // panicking like mustTable on a malformed embedded file.
 func mustFU(data []byte) (lower, upper []float64) {
-	for _, f := range dataRows(data) {
+	for _, f := range csvrows.Rows(data) {
 		cls, err1 := strconv.Atoi(f[0])
 		lo, err2 := strconv.ParseFloat(f[1], 64)
 		hi, err3 := strconv.ParseFloat(f[2], 64)
@@ -71,29 +70,4 @@ func mustFU(data []byte) (lower, upper []float64) {
 		upper = append(upper, hi)
 	}
 	return lower, upper
-}
-
-// dataRows yields the data rows of an embedded CSV as comma-separated fields
-// (not trimmed), with the 1-based line number in the file. Blank lines, '#'
-// comment lines and the first remaining row (the column header) are skipped.
-func dataRows(data []byte) iter.Seq2[int, []string] {
-	return func(yield func(int, []string) bool) {
-		sc := bufio.NewScanner(bytes.NewReader(data))
-		header := true
-		line := 0
-		for sc.Scan() {
-			line++
-			t := strings.TrimSpace(sc.Text())
-			if t == "" || strings.HasPrefix(t, "#") {
-				continue
-			}
-			if header {
-				header = false
-				continue
-			}
-			if !yield(line, strings.Split(t, ",")) {
-				return
-			}
-		}
-	}
 }

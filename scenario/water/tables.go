@@ -1,14 +1,14 @@
 package water
 
 import (
-	"bufio"
-	"bytes"
 	_ "embed"
 	"fmt"
 	"math"
 	"sort"
 	"strconv"
 	"strings"
+
+	"github.com/murk-optics/murk/scenario/csvrows"
 )
 
 // The embedded tables keep the provenance lines ('#' comments) of the copies
@@ -86,27 +86,14 @@ func (t *Table) at(nm float64) float64 {
 // parseTable reads a CSV whose '#' lines are comments and whose first other
 // line is a header. It returns columns xcol and ycol of the data rows.
 func parseTable(name string, data []byte, xcol, ycol int) (x, y []float64, err error) {
-	sc := bufio.NewScanner(bytes.NewReader(data))
-	header := true
-	line := 0
-	for sc.Scan() {
-		line++
-		s := strings.TrimSpace(sc.Text())
-		if s == "" || strings.HasPrefix(s, "#") {
-			continue
-		}
-		if header {
-			header = false
-			continue
-		}
-		f := strings.Split(s, ",")
+	for line, f := range csvrows.Rows(data) {
 		if len(f) <= xcol || len(f) <= ycol {
 			return nil, nil, fmt.Errorf("water: %s line %d: want at least %d columns, have %d", name, line, max(xcol, ycol)+1, len(f))
 		}
 		xv, err1 := strconv.ParseFloat(strings.TrimSpace(f[xcol]), 64)
 		yv, err2 := strconv.ParseFloat(strings.TrimSpace(f[ycol]), 64)
 		if err1 != nil || err2 != nil {
-			return nil, nil, fmt.Errorf("water: %s line %d: bad number in %q", name, line, s)
+			return nil, nil, fmt.Errorf("water: %s line %d: bad number in %q", name, line, strings.Join(f, ","))
 		}
 		if len(x) > 0 && xv <= x[len(x)-1] {
 			return nil, nil, fmt.Errorf("water: %s line %d: wavelength %g not increasing", name, line, xv)
@@ -114,7 +101,7 @@ func parseTable(name string, data []byte, xcol, ycol int) (x, y []float64, err e
 		x = append(x, xv)
 		y = append(y, yv)
 	}
-	if err := sc.Err(); err != nil {
+	if err := csvrows.Err(data); err != nil {
 		return nil, nil, fmt.Errorf("water: %s: %w", name, err)
 	}
 	if len(x) < 2 {
