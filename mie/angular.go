@@ -48,7 +48,9 @@ func (s *Solver) angularSums(mu float64) (s1, s2 complex128) {
 		s1i += t.ai*pi1 + t.bi*tau
 		s2r += t.ar*tau + t.br*pi1
 		s2i += t.ai*tau + t.bi*pi1
-		pi0, pi1 = pi1, t.c1*mp-t.c2*pi0
+		// c1·μ does not depend on π, so the recurrence's critical path is
+		// one multiply and one subtract per term.
+		pi0, pi1 = pi1, (t.c1*mu)*pi1-t.c2*pi0
 	}
 	return complex(s1r, s1i), complex(s2r, s2i)
 }
