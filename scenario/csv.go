@@ -7,7 +7,7 @@ import (
 
 	"github.com/murk-optics/murk/mixing"
 	"github.com/murk-optics/murk/scenario/iop"
-	"github.com/murk-optics/murk/scenario/safefile"
+	"github.com/murk-optics/murk/scenario/internal/safefile"
 	"github.com/murk-optics/murk/scenario/spec"
 	"github.com/murk-optics/murk/scenario/table"
 )

@@ -78,7 +78,7 @@
 // section variables, prefixed section_, on dimension cell_distance) and
 // figures (sections at every cell, spectra at up to five stations, tidal
 // envelopes near the turbidity maximum). Every file is written to a
-// temporary file and renamed (package scenario/safefile).
+// temporary file and renamed (package scenario/internal/safefile).
 //
 // # Units
 //

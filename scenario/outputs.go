@@ -10,7 +10,7 @@ import (
 	"sync"
 
 	"github.com/murk-optics/murk/scenario/plot"
-	"github.com/murk-optics/murk/scenario/safefile"
+	"github.com/murk-optics/murk/scenario/internal/safefile"
 )
 
 // product is one output file: its path and the function that writes it

@@ -7,7 +7,7 @@ import (
 	"io"
 	"math"
 
-	"github.com/murk-optics/murk/scenario/safefile"
+	"github.com/murk-optics/murk/scenario/internal/safefile"
 )
 
 // bufSize is the size of the Writer's conversion buffer in bytes.

@@ -16,7 +16,7 @@ import (
 	"gonum.org/v1/plot/vg/draw"
 	"gonum.org/v1/plot/vg/vgimg"
 
-	"github.com/murk-optics/murk/scenario/safefile"
+	"github.com/murk-optics/murk/scenario/internal/safefile"
 )
 
 // Quantity names what an axis shows and its unit. The axis label reads

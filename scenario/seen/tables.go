@@ -6,7 +6,7 @@ import (
 	"strconv"
 	"strings"
 
-	"github.com/murk-optics/murk/scenario/csvrows"
+	"github.com/murk-optics/murk/scenario/internal/csvrows"
 )
 
 // The tables below are published measured or standard values, embedded with

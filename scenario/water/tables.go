@@ -8,7 +8,7 @@ import (
 	"strconv"
 	"strings"
 
-	"github.com/murk-optics/murk/scenario/csvrows"
+	"github.com/murk-optics/murk/scenario/internal/csvrows"
 )
 
 // The embedded tables keep the provenance lines ('#' comments) of the copies

@@ -4,7 +4,7 @@ import (
 	"io"
 
 	"github.com/murk-optics/murk/scenario/netcdf"
-	"github.com/murk-optics/murk/scenario/safefile"
+	"github.com/murk-optics/murk/scenario/internal/safefile"
 )
 
 // Writer streams the data of a [Dataset]. It writes the values of the time
