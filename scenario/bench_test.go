@@ -30,30 +30,10 @@ func BenchmarkFill(b *testing.B) {
 	if err != nil {
 		b.Fatal(err)
 	}
-	r, pops, w := fillWorker(b, r0)
+	r, w := fillWorker(b, r0)
 	b.ReportAllocs()
 	for b.Loop() {
-		if err := w.fill(r, pops, 12, 11.5); err != nil {
-			b.Fatal(err)
-		}
-	}
-}
-
-// BenchmarkWriteOutputs writes every product of the demo (CSV tables at
-// the stations and at every cell, NetCDF, figures, summary).
-func BenchmarkWriteOutputs(b *testing.B) {
-	s, err := demo.Scenario()
-	if err != nil {
-		b.Fatal(err)
-	}
-	r, err := Run(context.Background(), s, Options{})
-	if err != nil {
-		b.Fatal(err)
-	}
-	dir := b.TempDir()
-	b.ReportAllocs()
-	for b.Loop() {
-		if _, err := r.WriteOutputs(dir); err != nil {
+		if err := w.fill(r.Plan, 12, 11.5); err != nil {
 			b.Fatal(err)
 		}
 	}

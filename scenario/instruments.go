@@ -6,7 +6,6 @@ import (
 
 	"github.com/murk-optics/murk/scenario/seen"
 	"github.com/murk-optics/murk/scenario/spec"
-	"github.com/murk-optics/murk/scenario/table"
 	"github.com/murk-optics/murk/scenario/water"
 )
 
@@ -38,24 +37,6 @@ type InstrumentReading struct {
 	Value float64   // the reading: c_m (m⁻¹), b_b (m⁻¹) or β_p(90°) (m⁻¹ sr⁻¹)
 	True  float64   // the model's own value: c, b_b or β_p(90°) from the VSF
 	Flags seen.Flag // the sensor model's flags
-}
-
-// instrumentUnit returns the unit of an instrument's reading.
-func instrumentUnit(k spec.InstrumentKind) string {
-	if k == spec.Turbidity {
-		return "m-1 sr-1"
-	}
-	return "m-1"
-}
-
-func instrumentQuantity(k spec.InstrumentKind) string {
-	switch k {
-	case spec.Transmissometer:
-		return "beam attenuation c"
-	case spec.Backscatter:
-		return "backscattering b_b"
-	}
-	return "particle VSF at 90 deg"
 }
 
 // instruments returns the instruments that can be simulated and the names
@@ -142,31 +123,4 @@ func (r *Result) readInstruments(w *worker, p int, sal, temp float64) error {
 		r.Readings[p*len(r.Instruments)+i] = rd
 	}
 	return nil
-}
-
-// InstrumentTable returns the readings of instrument i at every output
-// time, station and layer.
-func (r *Result) InstrumentTable(i int) *table.Table { return r.instrumentTable(i, 0, len(r.Times)) }
-
-func (r *Result) instrumentTable(i, t0, t1 int) *table.Table {
-	in := r.Instruments[i]
-	u := instrumentUnit(in.Kind)
-	q := instrumentQuantity(in.Kind)
-	lambda := in.Wavelength
-	if in.Kind == spec.Turbidity {
-		lambda = 860e-9
-	}
-	t := &table.Table{Title: fmt.Sprintf("instrument %s: %s, %s at %.0f nm", in.Name, in.Kind, q, lambda*1e9)}
-	t.Columns = []table.Column{{Name: "time", Unit: "h"}, {Name: "distance", Unit: "km"}, {Name: "layer"},
-		{Name: "reading", Unit: u}, {Name: "model_value", Unit: u}, {Name: "flags"}}
-	for ti := t0; ti < t1; ti++ {
-		for j := range r.Stations {
-			for l := 0; l < 2; l++ {
-				p := r.Point(ti, j, l)
-				rd := r.Readings[p*len(r.Instruments)+i]
-				t.Add(r.Times[ti]/3600, r.Stations[j]/1e3, layerName(l), rd.Value, rd.True, rd.Flags.String())
-			}
-		}
-	}
-	return t
 }

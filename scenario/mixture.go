@@ -2,11 +2,9 @@ package scenario
 
 import (
 	"context"
-	"fmt"
 
 	"github.com/murk-optics/murk/scenario/iop"
 	"github.com/murk-optics/murk/scenario/spec"
-	"github.com/murk-optics/murk/scenario/table"
 	"github.com/murk-optics/murk/scenario/water"
 )
 
@@ -29,43 +27,27 @@ func Mixture(ctx context.Context, m spec.Mixture, opt Options) (*MixtureResult, 
 	if err != nil {
 		return nil, err
 	}
-	so := m.Water.OceanSalinity
-	if so <= 0 {
-		so = 35
-	}
-	// A scenario wrapper so that the run's code serves the sample.
-	s := spec.Scenario{Mixture: m}
-	s.Estuary.Ocean.Salinity = so
 	ref := water.Medium{Salinity: m.Water.Salinity, TemperatureC: m.Water.Temperature}
-	pops, err := buildPopulations(ctx, s, opt, ref, func(string, ...any) {})
+	plan, err := NewPlan(ctx, m, ref, defaultOceanSalinity, opt)
 	if err != nil {
 		return nil, err
 	}
-	r := &Result{Scenario: s, Wavelengths: m.Optics.Wavelengths, Angles: m.Optics.Angles}
-	r.Components = components(r.Scenario)
-	w, err := r.newWorker(pops, opt)
+	w, err := plan.newWorker(opt)
 	if err != nil {
 		return nil, err
 	}
-	for i, po := range pops {
+	for i, po := range plan.populations {
 		if po.isFloc {
 			w.mass[i], w.flocD[i] = po.fixedMass, po.d0
 		}
 	}
-	if err := w.fill(r, pops, m.Water.Salinity, m.Water.Temperature); err != nil {
+	if err := w.fill(plan, m.Water.Salinity, m.Water.Temperature); err != nil {
 		return nil, err
 	}
-	return &MixtureResult{Mixture: m, Wavelengths: r.Wavelengths, Angles: r.Angles, Components: r.Components, Spectra: w.spectra}, nil
+	return &MixtureResult{Mixture: m, Wavelengths: plan.Wavelengths, Angles: plan.Angles, Components: plan.Components, Spectra: w.spectra}, nil
 }
 
-// Table returns one row per wavelength: each component's a (and b, b_b
-// for water and particles), the totals, c and b_b/b.
-func (mr *MixtureResult) Table() *table.Table {
-	sp := mr.Spectra
-	t := &table.Table{Title: fmt.Sprintf("IOP spectra of the sample (salinity %g, %g °C)", mr.Mixture.Water.Salinity, mr.Mixture.Water.Temperature)}
-	t.Columns = append([]table.Column{{Name: "wavelength", Unit: "nm"}}, spectrumColumns(mr.Components)...)
-	for w, lam := range mr.Wavelengths {
-		t.Add(spectrumRow([]any{lam * 1e9}, mr.Components, func(q iop.Quantity, k int) float64 { return sp.Components[k].Value(q, w) })...)
-	}
-	return t
-}
+// defaultOceanSalinity closes a sample's CDOM and chlorophyll mixing lines
+// when its water section gives no ocean salinity: 35 PSU, standard
+// seawater (common practice).
+const defaultOceanSalinity = 35

@@ -101,7 +101,11 @@ type Result struct {
 	Stations    []float64 // distance from the mouth, m
 	Classes     []string  // sediment classes
 	Components  []Component
-	Estuary     *mixing.Result // snapshots at Times
+	Estuary     *mixing.Result // snapshots at Times (Hydrodynamics.Result)
+
+	// Plan and Hydrodynamics are the stages the result was evaluated on.
+	Plan          *Plan
+	Hydrodynamics *Hydrodynamics
 
 	// Points is the state and bulk optics at the stations
 	// (Points.Distance is Stations).
@@ -230,10 +234,11 @@ func (r *Result) Sum(q iop.Quantity, p, w int, keep func(Component) bool) float6
 // Particles selects the particle components for Sum.
 func Particles(c Component) bool { return c.Kind == iop.Particles }
 
-// Run runs a validated scenario end to end: the estuary model coupled to
-// the floc model, the kernels of every population (once), and the IOPs and
-// apparent properties at every station, layer and output time. It honours
-// ctx between stages and between output times.
+// Run runs a validated scenario through the pipeline (doc.go): the optics
+// plan (kernels of every population, once), the hydrodynamics (the estuary
+// model coupled to the floc model), the IOPs at every station, layer and
+// output time, and what is sensed there. It honours ctx between stages and
+// between output times.
 func Run(ctx context.Context, s spec.Scenario, opt Options) (*Result, error) {
 	opt, err := opt.normalise()
 	if err != nil {
@@ -250,85 +255,56 @@ func Run(ctx context.Context, s spec.Scenario, opt Options) (*Result, error) {
 	if err != nil {
 		return nil, err
 	}
-
-	// 1. The estuary, with floc settling, runs in its own goroutine while
-	// 2. the kernels are built, once per population: the two are
-	// independent until the IOPs are evaluated.
-	set, err := newSettling(s, cfg, opt.FlocInterval)
+	plan, err := preparePlan(s.Mixture, referenceWater(s), s.Estuary.Ocean.Salinity, opt)
 	if err != nil {
 		return nil, err
 	}
-	set.ctx = ctx
+
+	// The hydrodynamics, with floc settling from the plan's floc models,
+	// run in their own goroutine while the plan builds its kernels: the
+	// two are independent until the IOPs are evaluated.
 	progress("running the estuary model: %d cells, %.1f days; building optical kernels for %d populations",
 		cfg.Geometry.Cells, cfg.Run.Duration/86400, len(s.Mixture.Populations))
-	var ms mixing.Settling
-	if len(cfg.Sediment) > 0 {
-		ms = set
-	}
 	var (
-		est    *mixing.Result
-		estErr error
-		done   = make(chan struct{})
+		hydro    *Hydrodynamics
+		hydroErr error
+		done     = make(chan struct{})
 	)
 	go func() {
 		defer close(done)
-		est, estErr = mixing.Run(cfg, ms)
+		hydro, hydroErr = runHydrodynamics(ctx, s.Estuary, cfg, opt.FlocInterval, planFlocs(s.Estuary, plan))
 	}()
-	pops, err := buildPopulations(ctx, s, opt, referenceWater(s), progress)
+	err = plan.build(ctx, opt, progress)
 	<-done
 	if err != nil {
 		return nil, err
 	}
-	if estErr != nil {
-		return nil, estErr
+	if hydroErr != nil {
+		return nil, hydroErr
 	}
-	progress("estuary model done: %d steps", est.Steps)
-	if len(est.Snapshots) != len(cfg.Run.Output) {
-		return nil, fmt.Errorf("scenario: estuary model returned %d snapshots for %d output times", len(est.Snapshots), len(cfg.Run.Output))
-	}
-	for _, po := range pops {
-		if po.isFloc {
-			for f, fc := range set.flocs {
-				if fc.class == po.spec.ClassIndex {
-					po.flocIdx = f
-				}
-			}
-		}
-	}
+	progress("estuary model done: %d steps", hydro.Result.Steps)
 	if err := ctx.Err(); err != nil {
 		return nil, err
 	}
-
-	// 3. IOPs at every station, layer and time: cheap weighted sums.
-	r := newResult(s, cfg, est, pops)
-	r.SolarZenith = opt.SolarZenith
-	progress("evaluating IOPs at %d stations × %d layers × %d times", len(r.Stations), mixing.Layers, len(r.Times))
-	if err := r.evaluate(ctx, set, pops, opt); err != nil {
-		return nil, err
-	}
-	r.Summary = summarise(r)
-	progress("done")
-	return r, nil
+	return Evaluate(ctx, s, plan, hydro, opt)
 }
 
-// buildPopulations builds the kernel of every population in the reference
-// water ref: the expensive part of the optics, once per run.
-func buildPopulations(ctx context.Context, s spec.Scenario, opt Options, ref water.Medium, progress func(string, ...any)) ([]*popOptics, error) {
-	wref, err := ref.IndexFunc()
+// Evaluate runs the last stages for scenario s on a built plan and
+// hydrodynamics: the IOPs at every station, layer and output time (cheap
+// weighted sums of the plan's kernels), what is sensed there, and the
+// summary. Workflows that share one plan between runs call it directly.
+func Evaluate(ctx context.Context, s spec.Scenario, plan *Plan, hydro *Hydrodynamics, opt Options) (*Result, error) {
+	opt, err := opt.normalise()
 	if err != nil {
 		return nil, err
 	}
-	pops := make([]*popOptics, len(s.Mixture.Populations))
-	for i, p := range s.Mixture.Populations {
-		if err := ctx.Err(); err != nil {
-			return nil, err
-		}
-		if pops[i], err = buildPopulation(p, s, opt, wref, ref); err != nil {
-			return nil, err
-		}
-		progress("  kernel %q: %d bins", p.Name, pops[i].table.NBins())
+	r := newResult(s, plan, hydro)
+	r.SolarZenith = opt.SolarZenith
+	if err := r.evaluate(ctx, opt); err != nil {
+		return nil, err
 	}
-	return pops, nil
+	r.Summary = summarise(r)
+	return r, nil
 }
 
 // normalise fills the zero fields of opt.
@@ -354,73 +330,24 @@ func (opt Options) normalise() (Options, error) {
 	return opt, nil
 }
 
-// newSettling builds the coupling of the estuary to the flocs: each class
-// that settles as flocs takes the model of the first floc population
-// riding on it.
-func newSettling(s spec.Scenario, cfg mixing.Config, interval float64) (*settling, error) {
-	e := s.Estuary
-	return settlingFor(e, cfg, interval, func(k int) (flocClass, error) {
-		c := e.Classes[k]
-		var pop *spec.Population
-		for i := range s.Mixture.Populations {
-			if p := &s.Mixture.Populations[i]; p.Kind == spec.KindFloc && p.ClassIndex == k {
-				pop = p
-				break
-			}
-		}
-		if pop == nil {
-			return flocClass{}, fmt.Errorf("scenario: sediment class %q settles as flocs but no floc population rides on it", c.Name)
-		}
-		shape, _, _, err := sizeShape(pop.Size)
-		if err != nil {
-			return flocClass{}, fmt.Errorf("population %q: %w", pop.Name, err)
-		}
-		m, d0, err := flocModel(*pop, shape)
-		if err != nil {
-			return flocClass{}, err
-		}
-		return flocClass{class: k, model: m, dynamic: pop.Floc.Dynamic, d0: d0}, nil
-	})
-}
-
-// settlingFor builds the coupling of estuary e to the flocs: classes of
-// constant settling keep their velocity, and each floc class k settles as
-// the floc model flocFor(k) returns (its settling table is built here).
-func settlingFor(e spec.Estuary, cfg mixing.Config, interval float64, flocFor func(k int) (flocClass, error)) (*settling, error) {
-	set := &settling{nc: len(e.Classes), interval: interval, outputs: cfg.Run.Output}
-	set.constant = make([]float64, len(e.Classes))
-	for k, c := range e.Classes {
-		if c.Settling != spec.SettlingFloc {
-			set.constant[k] = c.SettlingVelocity
-			continue
-		}
-		set.constant[k] = math.NaN()
-		fc, err := flocFor(k)
-		if err != nil {
-			return nil, err
-		}
-		if fc.table, err = newWSTable(fc.model, e.River.Temperature, e.Ocean.Temperature, 0); err != nil {
-			return nil, fmt.Errorf("scenario: class %q: %w", c.Name, err)
-		}
-		set.flocs = append(set.flocs, fc)
-	}
-	return set, nil
-}
-
-func newResult(s spec.Scenario, cfg mixing.Config, est *mixing.Result, pops []*popOptics) *Result {
+// newResult allocates the result of scenario s on plan and hydro.
+func newResult(s spec.Scenario, plan *Plan, hydro *Hydrodynamics) *Result {
+	est := hydro.Result
 	r := &Result{
-		Scenario:    s,
-		Wavelengths: s.Mixture.Optics.Wavelengths,
-		Angles:      s.Mixture.Optics.Angles,
-		Times:       cfg.Run.Output,
-		Classes:     est.Classes,
-		Estuary:     est,
+		Scenario:      s,
+		Plan:          plan,
+		Hydrodynamics: hydro,
+		Wavelengths:   plan.Wavelengths,
+		Angles:        plan.Angles,
+		Times:         hydro.Config.Run.Output,
+		Classes:       est.Classes,
+		Estuary:       est,
+		Components:    plan.Components,
 	}
 	r.Stations = s.Estuary.Run.Stations
 	if len(r.Stations) == 0 {
 		r.Stations = est.X
 	}
-	r.Components = components(s)
 	np := len(r.Times) * len(r.Stations) * mixing.Layers
 	nq := len(r.Times) * len(r.Stations)
 	nw, nk := r.NW(), r.NK()
@@ -441,36 +368,6 @@ func newResult(s spec.Scenario, cfg mixing.Config, est *mixing.Result, pops []*p
 	r.Readings = make([]InstrumentReading, np*len(r.Instruments))
 	r.SeenFlags = make([]seen.Flag, nq)
 	return r
-}
-
-// components lists the separable components of scenario s: water, CDOM,
-// pigment (if it applies) and every population, in the population order.
-// The populations refer to s's own slice.
-func components(s spec.Scenario) []Component {
-	c := []Component{{Name: "water", Kind: iop.Water}, {Name: "cdom", Kind: iop.Dissolved}}
-	if pigmentApplies(s) {
-		c = append(c, Component{Name: "pigment", Kind: iop.Pigment})
-	}
-	for i := range s.Mixture.Populations {
-		c = append(c, Component{Name: s.Mixture.Populations[i].Name, Kind: iop.Particles, Population: &s.Mixture.Populations[i]})
-	}
-	return c
-}
-
-// pigmentApplies: chlorophyll absorbs as a separate pigment component only
-// when no phytoplankton population is modelled as particles, whose own
-// absorption already holds the pigment (package iop, AddPigment).
-func pigmentApplies(s spec.Scenario) bool {
-	c := s.Mixture.Water.Chlorophyll
-	if c.River <= 0 && c.Ocean <= 0 {
-		return false
-	}
-	for _, p := range s.Mixture.Populations {
-		if p.Kind == spec.KindPhytoplankton {
-			return false
-		}
-	}
-	return true
 }
 
 // site is where a point sits between the cell centres xc: a field f
@@ -540,7 +437,7 @@ type worker struct {
 // their own concentration) with floc sizes w.flocD. This is the cheap part
 // of the optics: every population term is a dot product of its kernel with
 // bin numbers, or a scaled mass-specific spectrum.
-func (w *worker) fill(r *Result, pops []*popOptics, sal, temp float64) error {
+func (w *worker) fill(p *Plan, sal, temp float64) error {
 	comps := w.spectra.Components
 	k := 0
 	if err := w.spectra.FillWater(&comps[k], water.Medium{Salinity: sal, TemperatureC: min(max(temp, water.MinTemperatureC), water.MaxTemperatureC)}); err != nil {
@@ -552,11 +449,11 @@ func (w *worker) fill(r *Result, pops []*popOptics, sal, temp float64) error {
 		return err
 	}
 	k++
-	if r.Components[k].Kind == iop.Pigment {
-		chl := r.Scenario.Mixture.Water.Chlorophyll.AtSalinity(sal, w.cdom.OceanSalinity)
+	if p.Components[k].Kind == iop.Pigment {
+		chl := p.Mixture.Water.Chlorophyll.AtSalinity(sal, w.cdom.OceanSalinity)
 		c := &comps[k]
 		c.Kind = iop.Pigment
-		for i, lam := range r.Wavelengths {
+		for i, lam := range p.Wavelengths {
 			a, err := w.pigment.Absorption(lam, chl)
 			if err != nil {
 				return err
@@ -568,7 +465,7 @@ func (w *worker) fill(r *Result, pops []*popOptics, sal, temp float64) error {
 		}
 		k++
 	}
-	for i, po := range pops {
+	for i, po := range p.populations {
 		c := &comps[k+i]
 		dst := &w.popIOP[i]
 		switch {
@@ -590,31 +487,31 @@ func (w *worker) fill(r *Result, pops []*popOptics, sal, temp float64) error {
 	return nil
 }
 
-func (r *Result) newWorker(pops []*popOptics, opt Options) (*worker, error) {
-	sp, err := iop.New(r.Wavelengths, r.Angles)
+// newWorker returns the scratch space of one goroutine evaluating the
+// plan's optics at points.
+func (p *Plan) newWorker(opt Options) (*worker, error) {
+	sp, err := iop.New(p.Wavelengths, p.Angles)
 	if err != nil {
 		return nil, err
 	}
 	w := &worker{spectra: sp, obs: seen.Observer{SolarZenith: opt.SolarZenith}}
-	for _, c := range r.Components {
+	for _, c := range p.Components {
 		sp.Components = append(sp.Components, sp.Blank(c.Name, c.Kind, 0))
 	}
 	w.total = sp.Blank("total", iop.Particles, 0)
 	w.part = sp.Blank("particles", iop.Particles, 0)
+	pops := p.populations
+	nw := len(p.Wavelengths)
 	for _, po := range pops {
 		w.popIOP = append(w.popIOP, po.table.NewIOP())
 		w.numbers = append(w.numbers, make([]float64, po.table.NBins()))
 	}
-	w.bbp, w.cp = make([]float64, r.NW()), make([]float64, r.NW())
-	w.bbw = make([]float64, r.NW())
-	w.vsf = seen.VSF{Angle: r.Angles, Beta: make([]float64, r.NA())}
+	w.bbp, w.cp = make([]float64, nw), make([]float64, nw)
+	w.bbw = make([]float64, nw)
+	w.vsf = seen.VSF{Angle: p.Angles, Beta: make([]float64, len(p.Angles))}
 	w.mass, w.flocD = make([]float64, len(pops)), make([]float64, len(pops))
-	wa := r.Scenario.Mixture.Water
-	so := wa.OceanSalinity
-	if so <= 0 {
-		so = r.Scenario.Estuary.Ocean.Salinity
-	}
-	cd := wa.CDOM
+	so := p.OceanSalinity
+	cd := p.Mixture.Water.CDOM
 	lref := cd.ReferenceWavelength
 	if lref <= 0 {
 		lref = 440e-9
@@ -634,7 +531,7 @@ func (r *Result) newWorker(pops []*popOptics, opt Options) (*worker, error) {
 // evaluate fills the per-point state and optics. Output times are shared
 // out to workers; every point is computed by one worker into its own slots,
 // so the result does not depend on the number of workers.
-func (r *Result) evaluate(ctx context.Context, set *settling, pops []*popOptics, opt Options) error {
+func (r *Result) evaluate(ctx context.Context, opt Options) error {
 	nt := len(r.Times)
 	jobs := make(chan int)
 	errs := make([]error, nt)
@@ -642,7 +539,7 @@ func (r *Result) evaluate(ctx context.Context, set *settling, pops []*popOptics,
 	nwk := min(opt.Workers, nt)
 	workers := make([]*worker, nwk)
 	for i := range workers {
-		w, err := r.newWorker(pops, opt)
+		w, err := r.Plan.newWorker(opt)
 		if err != nil {
 			return err
 		}
@@ -653,7 +550,7 @@ func (r *Result) evaluate(ctx context.Context, set *settling, pops []*popOptics,
 		go func(w *worker) {
 			defer wg.Done()
 			for t := range jobs {
-				errs[t] = r.evaluateTime(w, t, set, pops)
+				errs[t] = r.evaluateTime(w, t)
 			}
 		}(w)
 	}
@@ -672,7 +569,7 @@ func (r *Result) evaluate(ctx context.Context, set *settling, pops []*popOptics,
 	return errors.Join(errs...)
 }
 
-func (r *Result) evaluateTime(w *worker, t int, set *settling, pops []*popOptics) error {
+func (r *Result) evaluateTime(w *worker, t int) error {
 	x := r.Estuary.X
 	nk, nw, na := r.NK(), r.NW(), r.NA()
 	comps := w.spectra.Components
@@ -681,7 +578,7 @@ func (r *Result) evaluateTime(w *worker, t int, set *settling, pops []*popOptics
 		st := siteAt(x, xs)
 		for l := 0; l < mixing.Layers; l++ {
 			p := r.Point(t, j, l)
-			if err := r.evaluatePoint(w, &r.Points, p, t, st, l, set, pops); err != nil {
+			if err := r.evaluatePoint(w, &r.Points, p, t, st, l); err != nil {
 				return err
 			}
 			for kk := range comps {
@@ -704,7 +601,7 @@ func (r *Result) evaluateTime(w *worker, t int, set *settling, pops []*popOptics
 	// The section: bulk optics at every cell centre.
 	for i := range x {
 		for l := 0; l < mixing.Layers; l++ {
-			if err := r.evaluatePoint(w, &r.Section, r.Section.Point(t, i, l), t, site{i, 0}, l, set, pops); err != nil {
+			if err := r.evaluatePoint(w, &r.Section, r.Section.Point(t, i, l), t, site{i, 0}, l); err != nil {
 				return err
 			}
 		}
@@ -715,13 +612,13 @@ func (r *Result) evaluateTime(w *worker, t int, set *settling, pops []*popOptics
 // evaluatePoint computes point p of ps (output time t, layer l, at site
 // st of the model grid): the water state, the worker's components and
 // their total and particle sum, and the stored totals and slopes.
-func (r *Result) evaluatePoint(w *worker, ps *Points, p, t int, st site, l int, set *settling, pops []*popOptics) error {
+func (r *Result) evaluatePoint(w *worker, ps *Points, p, t int, st site, l int) error {
 	snap := &r.Estuary.Snapshots[t]
 	nc, np := r.NC(), r.NP()
 	ncell := len(r.Estuary.X)
 	var sizes []float64
-	if t < len(set.sizes) {
-		sizes = set.sizes[t]
+	if t < len(r.Hydrodynamics.FlocDiameter) {
+		sizes = r.Hydrodynamics.FlocDiameter[t]
 	}
 	sal := clampSalinity(st.of(snap.Salinity[l]))
 	temp := st.of(snap.Temperature[l])
@@ -731,7 +628,7 @@ func (r *Result) evaluatePoint(w *worker, ps *Points, p, t int, st site, l int, 
 	for c := 0; c < nc; c++ {
 		ps.Concentration[p*nc+c] = max(st.of(snap.Concentration[l][c]), 0)
 	}
-	for i, po := range pops {
+	for i, po := range r.Plan.populations {
 		w.mass[i], w.flocD[i] = 0, 0
 		switch {
 		case po.uniform:
@@ -741,8 +638,8 @@ func (r *Result) evaluatePoint(w *worker, ps *Points, p, t int, st site, l int, 
 				w.mass[i] = ps.Concentration[p*nc+po.spec.ClassIndex] * po.spec.ClassFraction
 			}
 			d := po.d0
-			if po.flocIdx >= 0 && sizes != nil {
-				d = st.flocOf(sizes[po.flocIdx*ncell*mixing.Layers:], l)
+			if f := r.Hydrodynamics.flocSlot(po.spec.ClassIndex); f >= 0 && sizes != nil {
+				d = st.flocOf(sizes[f*ncell*mixing.Layers:], l)
 			}
 			w.flocD[i] = d
 			ps.FlocDiameter[p*np+i] = d
@@ -750,7 +647,7 @@ func (r *Result) evaluatePoint(w *worker, ps *Points, p, t int, st site, l int, 
 			w.mass[i] = ps.Concentration[p*nc+po.spec.ClassIndex] * po.spec.ClassFraction
 		}
 	}
-	if err := w.fill(r, pops, sal, temp); err != nil {
+	if err := w.fill(r.Plan, sal, temp); err != nil {
 		return err
 	}
 	w.spectra.Sum(&w.total, nil)

@@ -1,43 +1,23 @@
 package scenario
 
 import (
-	"bytes"
 	"context"
 	"errors"
 	"math"
-	"os"
-	"path/filepath"
-	"runtime"
 	"slices"
 	"sort"
 	"testing"
 
 	"github.com/murk-optics/murk/floc"
 	"github.com/murk-optics/murk/mixing"
-	"github.com/murk-optics/murk/scenario/demo"
+	"github.com/murk-optics/murk/scenario/internal/testrun"
 	"github.com/murk-optics/murk/scenario/iop"
 	"github.com/murk-optics/murk/scenario/seen"
 	"github.com/murk-optics/murk/scenario/spec"
 	"github.com/murk-optics/murk/scenario/water"
 )
 
-// smallDemo is the demo scenario cut down for tests: 6 wavelengths, 20
-// size bins, 40 cells, a 3-day spin-up and 4 hours of output.
-func smallDemo(t testing.TB) spec.Scenario {
-	t.Helper()
-	s, err := demo.Scenario()
-	if err != nil {
-		t.Fatal(err)
-	}
-	// 660, 700 and 860 nm: the demo's instruments sit on the grid.
-	s.Mixture.Optics.Wavelengths = []float64{400e-9, 500e-9, 550e-9, 660e-9, 700e-9, 860e-9}
-	s.Mixture.Optics.SizeBins = 20
-	s.Estuary.Geometry.Cells = 40
-	s.Estuary.Run.SpinUp = 3 * 86400
-	s.Estuary.Run.Duration = 4 * 3600
-	s.Estuary.Run.OutputInterval = 2 * 3600
-	return s
-}
+func smallDemo(t testing.TB) spec.Scenario { return testrun.SmallDemo(t) }
 
 var smallResult *Result
 
@@ -156,7 +136,7 @@ func TestWaterAndCDOM(t *testing.T) {
 // concentration; common practice for dilute suspensions).
 func TestLinearInConcentration(t *testing.T) {
 	r := runSmall(t)
-	k := r.popComponent(0) // silt rides on fine_mud
+	k := r.ComponentOf(0) // silt rides on fine_mud
 	pop := r.Scenario.Mixture.Populations[0]
 	w := refWavelength(r.Wavelengths)
 	var ref float64
@@ -173,45 +153,6 @@ func TestLinearInConcentration(t *testing.T) {
 		if math.Abs(spec-ref) > 1e-12*ref {
 			t.Fatalf("point %d: b_b per mass %g, want %g at every point", p, spec, ref)
 		}
-	}
-}
-
-// Identical results for GOMAXPROCS 1 and 2 (STYLE.md: deterministic
-// parallel work), compared byte for byte on the CSV tables, the summary
-// and the NetCDF file.
-func TestDeterministic(t *testing.T) {
-	s := smallDemo(t)
-	s.Estuary.Run.Duration = 2 * 3600
-	run := func(procs int) []byte {
-		old := runtime.GOMAXPROCS(procs)
-		defer runtime.GOMAXPROCS(old)
-		r, err := Run(context.Background(), s, Options{})
-		if err != nil {
-			t.Fatal(err)
-		}
-		var b bytes.Buffer
-		for _, tb := range r.csvTables() {
-			if err := tb.writeCSV(&b, len(r.Times)); err != nil {
-				t.Fatal(err)
-			}
-		}
-		if err := r.WriteSummary(&b); err != nil {
-			t.Fatal(err)
-		}
-		nc := filepath.Join(t.TempDir(), "run.nc")
-		if err := r.WriteNetCDF(nc); err != nil {
-			t.Fatal(err)
-		}
-		data, err := os.ReadFile(nc)
-		if err != nil {
-			t.Fatal(err)
-		}
-		b.Write(data)
-		return b.Bytes()
-	}
-	one, two := run(1), run(2)
-	if !bytes.Equal(one, two) {
-		t.Fatalf("outputs differ between GOMAXPROCS 1 and 2 (%d vs %d bytes)", len(one), len(two))
 	}
 }
 
@@ -299,20 +240,17 @@ const (
 func TestDefaultKernelAccuracy(t *testing.T) {
 	s := smallDemo(t)
 	s.Mixture.Optics.Wavelengths = []float64{450e-9, 650e-9}
-	ref := referenceWater(s)
-	wref, err := ref.IndexFunc()
+	s.Mixture.Populations = s.Mixture.Populations[:2] // silt (Junge) and detritus (lognormal)
+	fastPlan, err := NewPlan(context.Background(), s.Mixture, referenceWater(s), s.Estuary.Ocean.Salinity, Options{Kernel: DefaultKernel})
 	if err != nil {
 		t.Fatal(err)
 	}
-	for _, p := range s.Mixture.Populations[:2] { // silt (Junge) and detritus (lognormal)
-		fast, err := buildPopulation(p, s, Options{Kernel: DefaultKernel}, wref, ref)
-		if err != nil {
-			t.Fatal(err)
-		}
-		exact, err := buildPopulation(p, s, Options{}, wref, ref)
-		if err != nil {
-			t.Fatal(err)
-		}
+	exactPlan, err := NewPlan(context.Background(), s.Mixture, referenceWater(s), s.Estuary.Ocean.Salinity, Options{Kernel: KernelOptions{Exact: true}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for i, p := range s.Mixture.Populations {
+		fast, exact := fastPlan.populations[i], exactPlan.populations[i]
 		for w := range s.Mixture.Optics.Wavelengths {
 			for _, q := range []struct {
 				name     string
@@ -334,9 +272,9 @@ func TestDefaultKernelAccuracy(t *testing.T) {
 // The per-point optics (water, CDOM, every population) allocate nothing
 // once a worker is built (STYLE.md: hot loops allocate nothing).
 func TestFillAllocs(t *testing.T) {
-	r, pops, w := fillWorker(t, runSmall(t))
+	r, w := fillWorker(t, runSmall(t))
 	allocs := testing.AllocsPerRun(20, func() {
-		if err := w.fill(r, pops, 12, 11.5); err != nil {
+		if err := w.fill(r.Plan, 12, 11.5); err != nil {
 			t.Fatal(err)
 		}
 	})
@@ -345,24 +283,19 @@ func TestFillAllocs(t *testing.T) {
 	}
 }
 
-// fillWorker builds the kernels of r's scenario and a worker holding every
-// population at 50 g m⁻³ with 80 µm flocs, for the per-point optics.
-func fillWorker(tb testing.TB, r *Result) (*Result, []*popOptics, *worker) {
+// fillWorker returns a worker on r's plan holding every population at
+// 50 g m⁻³ with 80 µm flocs, for the per-point optics.
+func fillWorker(tb testing.TB, r *Result) (*Result, *worker) {
 	tb.Helper()
-	s := r.Scenario
-	pops, err := buildPopulations(context.Background(), s, Options{Kernel: DefaultKernel}, referenceWater(s), func(string, ...any) {})
-	if err != nil {
-		tb.Fatal(err)
-	}
 	opt, _ := Options{}.normalise()
-	w, err := r.newWorker(pops, opt)
+	w, err := r.Plan.newWorker(opt)
 	if err != nil {
 		tb.Fatal(err)
 	}
-	for i := range pops {
+	for i := range w.mass {
 		w.mass[i], w.flocD[i] = 0.05, 80e-6
 	}
-	return r, pops, w
+	return r, w
 }
 
 // A cancelled context stops the run with the context's error (an
@@ -425,25 +358,5 @@ func TestInstruments(t *testing.T) {
 				}
 			}
 		}
-	}
-}
-
-// Chunked CSV writing gives the same bytes as the whole table at once.
-func TestChunkedCSV(t *testing.T) {
-	s := smallDemo(t)
-	s.Estuary.Run.Duration = 20 * 3600 // 11 output times: two chunks
-	r, err := Run(context.Background(), s, Options{})
-	if err != nil {
-		t.Fatal(err)
-	}
-	var whole, chunked bytes.Buffer
-	if err := r.SpectraTable().WriteCSV(&whole); err != nil {
-		t.Fatal(err)
-	}
-	if err := (namedTable{chunk: r.spectraTable}).writeCSV(&chunked, len(r.Times)); err != nil {
-		t.Fatal(err)
-	}
-	if len(r.Times) <= csvChunk || !bytes.Equal(whole.Bytes(), chunked.Bytes()) {
-		t.Errorf("%d times: chunked CSV differs from the whole table (%d vs %d bytes)", len(r.Times), chunked.Len(), whole.Len())
 	}
 }

@@ -12,6 +12,7 @@ import (
 	"golang.org/x/term"
 
 	"github.com/murk-optics/murk/scenario"
+	"github.com/murk-optics/murk/scenario/products"
 	"github.com/murk-optics/murk/scenario/spec"
 	"github.com/murk-optics/murk/scenario/table"
 )
@@ -126,7 +127,7 @@ func (c *cli) writeTable(t *table.Table, path string, f table.Format, stdout io.
 	if path == "" {
 		err = t.Write(stdout, f)
 	} else {
-		err = scenario.WriteTable(path, t)
+		err = products.WriteTable(path, t)
 	}
 	if err != nil {
 		return c.fail(err)
@@ -150,7 +151,7 @@ func (c *cli) runScenario(s spec.Scenario, dir string, summary bool, stdout io.W
 		return c.fail(err)
 	}
 	if dir != "" {
-		paths, err := r.WriteOutputs(dir)
+		paths, err := products.WriteOutputs(r, dir)
 		for _, p := range paths {
 			fmt.Fprintf(c.stderr, "wrote %s\n", p)
 		}
@@ -159,7 +160,7 @@ func (c *cli) runScenario(s spec.Scenario, dir string, summary bool, stdout io.W
 		}
 	}
 	if summary {
-		if err := r.WriteSummary(stdout); err != nil {
+		if err := products.WriteSummary(r, stdout); err != nil {
 			return c.fail(err)
 		}
 	}

@@ -6,6 +6,7 @@ import (
 	"io"
 
 	"github.com/murk-optics/murk/scenario"
+	"github.com/murk-optics/murk/scenario/products"
 	"github.com/murk-optics/murk/scenario/spec"
 	"github.com/murk-optics/murk/scenario/table"
 )
@@ -38,7 +39,7 @@ func runEstuary(args []string, stdout, stderr io.Writer) int {
 	if err != nil {
 		return c.fail(err)
 	}
-	if code := c.writeTable(er.Table(), *out, table.CSV, stdout); code != exitOK {
+	if code := c.writeTable(products.EstuaryTable(er), *out, table.CSV, stdout); code != exitOK {
 		return code
 	}
 	fmt.Fprint(stderr, er.Describe())

@@ -5,6 +5,7 @@ import (
 	"io"
 
 	"github.com/murk-optics/murk/scenario"
+	"github.com/murk-optics/murk/scenario/products"
 	"github.com/murk-optics/murk/scenario/spec"
 )
 
@@ -36,5 +37,5 @@ func runMixture(args []string, stdout, stderr io.Writer) int {
 	if err != nil {
 		return c.fail(err)
 	}
-	return c.writeTable(mr.Table(), "", *format, stdout)
+	return c.writeTable(products.MixtureTable(mr), "", *format, stdout)
 }

@@ -1,34 +1,14 @@
-package scenario
+package products
 
 import (
 	"fmt"
 	"math"
 	"slices"
-	"sort"
 
 	"github.com/murk-optics/murk/mixing"
+	"github.com/murk-optics/murk/scenario"
 	"github.com/murk-optics/murk/scenario/plot"
 )
-
-// stationOrder returns the station indices sorted by distance, keeping
-// the first of equal distances (a section needs strictly increasing x).
-func (r *Result) stationOrder() []int {
-	idx := make([]int, len(r.Stations))
-	for i := range idx {
-		idx[i] = i
-	}
-	sort.SliceStable(idx, func(a, b int) bool { return r.Stations[idx[a]] < r.Stations[idx[b]] })
-	out := idx[:0]
-	for _, j := range idx {
-		if len(out) == 0 || r.Stations[j] > r.Stations[out[len(out)-1]] {
-			out = append(out, j)
-		}
-	}
-	return out
-}
-
-// pointValue is one scalar of point p of a set of points, for figures.
-type pointValue func(ps *Points, p int) float64
 
 // maxSpectraLines bounds the stations drawn in a spectra figure: more
 // lines than the plot's palette has colours cannot be told apart.
@@ -41,7 +21,7 @@ const maxSpectraLines = 5
 type sectionFigure struct {
 	base     string
 	q        plot.Quantity
-	f        pointValue
+	f        scenario.PointValue
 	log      bool
 	envelope bool
 }
@@ -62,27 +42,27 @@ type sectionFigure struct {
 // A figure has a logarithmic Y axis when its quantity can span decades
 // (concentration, b_b, c, floc size) and its values do span at least one
 // decade; otherwise the axis is linear, which reads more easily.
-func (r *Result) Figures() []NamedFigure {
+func Figures(r *scenario.Result) []NamedFigure {
 	var figs []NamedFigure
-	wref := refWavelength(r.Wavelengths)
+	wref := r.Points.Band[r.Points.Ref]
 	lam := fmt.Sprintf("%.0f nm", r.Wavelengths[wref]*1e9)
 	nc, nw := r.NC(), r.NW()
 	vals := []sectionFigure{
-		{"section_salinity", plot.Quantity{Name: "Practical salinity", Unit: "1"}, func(ps *Points, p int) float64 { return ps.Salinity[p] }, false, true},
-		{"section_ssc", plot.Quantity{Name: "Suspended sediment", Unit: "g m-3"}, func(ps *Points, p int) float64 { return ps.SSC(p, nc) * 1e3 }, true, true},
-		{"section_bb", plot.Quantity{Name: "Backscattering b_b at " + lam, Unit: "m-1"}, func(ps *Points, p int) float64 { return ps.AtRef(ps.TotalBb, p) }, true, true},
-		{"section_c", plot.Quantity{Name: "Beam attenuation c at " + lam, Unit: "m-1"}, func(ps *Points, p int) float64 {
+		{"section_salinity", plot.Quantity{Name: "Practical salinity", Unit: "1"}, func(ps *scenario.Points, p int) float64 { return ps.Salinity[p] }, false, true},
+		{"section_ssc", plot.Quantity{Name: "Suspended sediment", Unit: "g m-3"}, func(ps *scenario.Points, p int) float64 { return ps.SSC(p, nc) * 1e3 }, true, true},
+		{"section_bb", plot.Quantity{Name: "Backscattering b_b at " + lam, Unit: "m-1"}, func(ps *scenario.Points, p int) float64 { return ps.AtRef(ps.TotalBb, p) }, true, true},
+		{"section_c", plot.Quantity{Name: "Beam attenuation c at " + lam, Unit: "m-1"}, func(ps *scenario.Points, p int) float64 {
 			return ps.AtRef(ps.TotalA, p) + ps.AtRef(ps.TotalB, p)
 		}, true, false},
-		{"section_bb_ratio", plot.Quantity{Name: "Particle backscattering ratio b_bp/b_p at " + lam, Unit: "1"}, func(ps *Points, p int) float64 {
+		{"section_bb_ratio", plot.Quantity{Name: "Particle backscattering ratio b_bp/b_p at " + lam, Unit: "1"}, func(ps *scenario.Points, p int) float64 {
 			return ratio(ps.AtRef(ps.Bbp, p), ps.AtRef(ps.Bp, p))
 		}, false, false},
-		{"section_bbp_slope", plot.Quantity{Name: "Spectral slope γ of b_bp (b_bp ~ λ^-γ)", Unit: "1"}, func(ps *Points, p int) float64 { return ps.ParticleBbSlope[p] }, false, false},
+		{"section_bbp_slope", plot.Quantity{Name: "Spectral slope γ of b_bp (b_bp ~ λ^-γ)", Unit: "1"}, func(ps *scenario.Points, p int) float64 { return ps.ParticleBbSlope[p] }, false, false},
 	}
 	for i, pop := range r.Scenario.Mixture.Populations {
-		if r.hasFlocs(i) {
+		if hasFlocs(r, i) {
 			vals = append(vals, sectionFigure{"section_floc_" + pop.Name, plot.Quantity{Name: "Median floc size of " + pop.Name, Unit: "µm"},
-				func(ps *Points, p int) float64 { return ps.FlocDiameter[p*r.NP()+i] * 1e6 }, true, false})
+				func(ps *scenario.Points, p int) float64 { return ps.FlocDiameter[p*r.NP()+i] * 1e6 }, true, false})
 		}
 	}
 	sec := &r.Section
@@ -101,7 +81,7 @@ func (r *Result) Figures() []NamedFigure {
 			lines := make([]plot.Line, mixing.Layers)
 			var band *plot.Band
 			for l := range lines {
-				mean, lo, hi := r.tidalStats(sec, l, v.f)
+				mean, lo, hi := r.TidalStats(sec, l, v.f)
 				lines[l] = plot.Line{Label: layerName(l) + " layer, tidal mean", Y: ends(mean)}
 				if l == 0 {
 					band = &plot.Band{Label: "upper layer, tidal range", Lo: ends(lo), Hi: ends(hi)}
@@ -111,21 +91,21 @@ func (r *Result) Figures() []NamedFigure {
 			if v.base == "section_bbp_slope" {
 				title = fmt.Sprintf("b_bp spectral slope along the channel (differences below %.1f are within fit scatter)", float64(slopeChange))
 			}
-			f := r.sectionPlot(title, km, v.q, lines, band)
+			f := sectionPlot(r, title, km, v.q, lines, band)
 			f.LogY = v.log && decades(band.Lo, band.Hi, lines[1].Y)
 			figs = append(figs, NamedFigure{v.base, f})
 		}
 		// The layer structure, as heights above the bed: the water
 		// surface (total depth) and the interface (lower-layer thickness).
-		surface, _, _ := r.tidalStats(sec, 0, func(ps *Points, p int) float64 { return ps.Thickness[p] + ps.Thickness[p+1] })
-		iface, lo, hi := r.tidalStats(sec, 1, func(ps *Points, p int) float64 { return ps.Thickness[p] })
-		f := r.sectionPlot("Layer structure along the channel", km, plot.Quantity{Name: "Height above the bed", Unit: "m"},
+		surface, _, _ := r.TidalStats(sec, 0, func(ps *scenario.Points, p int) float64 { return ps.Thickness[p] + ps.Thickness[p+1] })
+		iface, lo, hi := r.TidalStats(sec, 1, func(ps *scenario.Points, p int) float64 { return ps.Thickness[p] })
+		f := sectionPlot(r, "Layer structure along the channel", km, plot.Quantity{Name: "Height above the bed", Unit: "m"},
 			[]plot.Line{{Label: "water surface, tidal mean", Y: ends(surface)}, {Label: "interface between the layers, tidal mean", Y: ends(iface)}},
 			&plot.Band{Label: "interface, tidal range", Lo: ends(lo), Hi: ends(hi)})
 		figs = append(figs, NamedFigure{"section_layers", f})
 	}
 	// Spectra at stations.
-	spec := r.spectraStations()
+	spec := spectraStations(r)
 	if nw >= 2 && len(spec) > 0 {
 		nm := make([]float64, nw)
 		for i, l := range r.Wavelengths {
@@ -163,7 +143,7 @@ func (r *Result) Figures() []NamedFigure {
 	}
 	// Tidal envelopes at the station nearest the turbidity maximum.
 	if nt := len(r.Times); nt >= 2 && len(r.Stations) > 0 {
-		j := r.nearestStation(r.Summary.ETMPosition)
+		j := r.NearestStation(r.Summary.ETMPosition)
 		th := make([]float64, nt)
 		for t := range th {
 			th[t] = (r.Times[t] - r.Times[0]) / 3600
@@ -195,27 +175,10 @@ func (r *Result) Figures() []NamedFigure {
 
 // sectionPlot is a section figure with the distance axis stating which
 // end is the sea.
-func (r *Result) sectionPlot(title string, km []float64, q plot.Quantity, lines []plot.Line, band *plot.Band) plot.Figure {
+func sectionPlot(r *scenario.Result, title string, km []float64, q plot.Quantity, lines []plot.Line, band *plot.Band) plot.Figure {
 	f := plot.Section(title, km, q, lines, band)
 	f.X = plot.Quantity{Name: "Distance landward from the mouth (sea at 0)", Unit: "km"}
 	return f
-}
-
-// tidalStats returns the mean, minimum and maximum over the output times of
-// f at every position of ps in layer l.
-func (r *Result) tidalStats(ps *Points, l int, f pointValue) (mean, lo, hi []float64) {
-	n, nt := len(ps.Distance), len(r.Times)
-	mean, lo, hi = make([]float64, n), make([]float64, n), make([]float64, n)
-	for i := range mean {
-		lo[i], hi[i] = math.Inf(1), math.Inf(-1)
-		for t := 0; t < nt; t++ {
-			x := f(ps, ps.Point(t, i, l))
-			mean[i] += x
-			lo[i], hi[i] = min(lo[i], x), max(hi[i], x)
-		}
-		mean[i] /= float64(nt)
-	}
-	return mean, lo, hi
 }
 
 // decades reports whether the values are all positive and span at least
@@ -233,17 +196,6 @@ func decades(vs ...[]float64) bool {
 	return hi >= 10*lo
 }
 
-// nearestStation returns the index of the station nearest distance x.
-func (r *Result) nearestStation(x float64) int {
-	j := 0
-	for i, s := range r.Stations {
-		if math.Abs(s-x) < math.Abs(r.Stations[j]-x) {
-			j = i
-		}
-	}
-	return j
-}
-
 // spectraStation is one station drawn in the spectra figures.
 type spectraStation struct {
 	j     int
@@ -254,8 +206,8 @@ type spectraStation struct {
 // the two ends, the station nearest the turbidity maximum (the middle of
 // the channel without sediment) and the stations nearest halfway between
 // it and either end.
-func (r *Result) spectraStations() []spectraStation {
-	order := r.stationOrder()
+func spectraStations(r *scenario.Result) []spectraStation {
+	order := r.StationOrder()
 	n := len(order)
 	if n == 0 {
 		return nil
@@ -263,14 +215,14 @@ func (r *Result) spectraStations() []spectraStation {
 	x0, x1 := r.Stations[order[0]], r.Stations[order[n-1]]
 	xe, etm := (x0+x1)/2, -1
 	if len(r.Classes) > 0 {
-		etm = r.nearestStation(r.Summary.ETMPosition)
+		etm = r.NearestStation(r.Summary.ETMPosition)
 		xe = r.Stations[etm]
 	}
 	pick := order
 	if n > maxSpectraLines {
 		pick = nil
 		for _, x := range []float64{x0, (x0 + xe) / 2, xe, (xe + x1) / 2, x1} {
-			if j := r.nearestStation(x); !slices.Contains(pick, j) {
+			if j := r.NearestStation(x); !slices.Contains(pick, j) {
 				pick = append(pick, j)
 			}
 		}

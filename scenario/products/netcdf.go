@@ -1,4 +1,4 @@
-package scenario
+package products
 
 import (
 	"fmt"
@@ -7,6 +7,7 @@ import (
 	"time"
 
 	"github.com/murk-optics/murk/mixing"
+	"github.com/murk-optics/murk/scenario"
 	"github.com/murk-optics/murk/scenario/netcdf"
 	"github.com/murk-optics/murk/scenario/netcdf/cf"
 	"github.com/murk-optics/murk/scenario/spec"
@@ -28,7 +29,7 @@ const netcdfReferences = "Hansen & Rattray 1965; MacCready 2004; Geyer & MacCrea
 // full-resolution section), layer, component, wavelength and angle;
 // variables with units, long_name and, where the CF Standard Name Table has
 // one, standard_name (see ncVars).
-func (r *Result) Dataset() *cf.Dataset {
+func Dataset(r *scenario.Result) *cf.Dataset {
 	name := r.Scenario.Name
 	if name == "" {
 		name = "murk scenario run"
@@ -37,7 +38,7 @@ func (r *Result) Dataset() *cf.Dataset {
 		Title:      name,
 		Source:     "murk scenario run (github.com/murk-optics/murk)",
 		References: netcdfReferences,
-		Comment: strings.Join(strings.Fields(Caution), " ") + " Regime boundaries: " + mixing.RegimeDigitisation +
+		Comment: strings.Join(strings.Fields(scenario.Caution), " ") + " Regime boundaries: " + mixing.RegimeDigitisation +
 			". Optical values are single-scattering estimates from the stated models. Time counts from the start of the run (the start of the spin-up) at a nominal epoch.",
 	}}
 	d.AddTime(cf.Time{Epoch: NetCDFEpoch, Seconds: r.Times, Unlimited: false})
@@ -71,7 +72,7 @@ func (r *Result) Dataset() *cf.Dataset {
 		}
 		d.AddCoord(cf.Coord{Name: "cell_distance", Values: km, Units: "km", LongName: "distance of the model cell centre along the channel from the mouth (landward positive)", Axis: "X"})
 	}
-	for _, v := range r.ncVars() {
+	for _, v := range ncVars(r) {
 		d.AddVar(cf.Var{Name: v.name, Type: netcdf.Float, Dims: v.dims, Units: v.units, LongName: v.long, StandardName: v.std,
 			Extra: coordsAttr(v.dims)})
 	}
@@ -91,13 +92,13 @@ type ncVar struct {
 // bulk optics at the stations (dimension distance), the same at every model
 // cell (dimension cell_distance, names prefixed section_), the components
 // and VSF and what is seen at the stations, and the instruments.
-func (r *Result) ncVars() []ncVar {
+func ncVars(r *scenario.Result) []ncVar {
 	var vs []ncVar
 	add := func(name string, dims []string, units, long, std string, data func() []float64) {
 		vs = append(vs, ncVar{name: name, dims: dims, units: units, long: long, std: std, data: data})
 	}
-	r.addPointVars(add, &r.Points, "", "distance", " at the station")
-	r.addPointVars(add, &r.Section, "section_", "cell_distance", " at the model cell centre")
+	addPointVars(r, add, &r.Points, "", "distance", " at the station")
+	addPointVars(r, add, &r.Section, "section_", "cell_distance", " at the model cell centre")
 	tdlkw := []string{"time", "distance", "layer", "component", "wavelength"}
 	same := func(v []float64) func() []float64 { return func() []float64 { return v } }
 	add("component_a", tdlkw, "m-1", "absorption coefficient of each component", "", same(r.A))
@@ -143,7 +144,7 @@ func (r *Result) ncVars() []ncVar {
 // addPointVars adds the variables of the points ps along dimension dist:
 // the water state, the bulk optics per wavelength and the slopes, named
 // prefix + name; where qualifies every long name.
-func (r *Result) addPointVars(add func(name string, dims []string, units, long, std string, data func() []float64), ps *Points, prefix, dist, where string) {
+func addPointVars(r *scenario.Result, add func(name string, dims []string, units, long, std string, data func() []float64), ps *scenario.Points, prefix, dist, where string) {
 	tdl := []string{"time", dist, "layer"}
 	tdlw := []string{"time", dist, "layer", "wavelength"}
 	whereW := where
@@ -165,7 +166,7 @@ func (r *Result) addPointVars(add func(name string, dims []string, units, long, 
 		return v
 	})
 	for i, pop := range r.Scenario.Mixture.Populations {
-		if r.hasFlocs(i) {
+		if hasFlocs(r, i) {
 			add(prefix+"floc_d50_"+pop.Name, tdl, "m", "median diameter of the floc mass of population "+pop.Name+where, "", func() []float64 {
 				v := make([]float64, len(ps.Salinity))
 				for p := range v {
@@ -215,9 +216,9 @@ func coordsAttr(dims []string) []netcdf.Attr {
 
 // WriteNetCDF writes the run as a CF NetCDF file at path, atomically.
 // Values are stored as floats (single precision), one variable at a time.
-func (r *Result) WriteNetCDF(path string) error {
-	d := r.Dataset()
-	vs := r.ncVars()
+func WriteNetCDF(r *scenario.Result, path string) error {
+	d := Dataset(r)
+	vs := ncVars(r)
 	var buf []float32
 	return cf.Create(path, d, func(w *cf.Writer) error {
 		for _, v := range vs {

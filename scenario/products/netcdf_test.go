@@ -1,4 +1,4 @@
-package scenario
+package products
 
 import (
 	"encoding/json"
@@ -22,7 +22,7 @@ const float32Tol = 1.2e-7
 func TestNetCDFReadBack(t *testing.T) {
 	r := runSmall(t)
 	path := filepath.Join(t.TempDir(), "run.nc")
-	if err := r.WriteNetCDF(path); err != nil {
+	if err := WriteNetCDF(r, path); err != nil {
 		t.Fatal(err)
 	}
 	if _, err := exec.LookPath("ncdump"); err == nil {
@@ -96,7 +96,7 @@ func TestNetCDFReadBack(t *testing.T) {
 // figures with golden output).
 func TestFigures(t *testing.T) {
 	r := runSmall(t)
-	paths, err := r.WritePlots(t.TempDir())
+	paths, err := WritePlots(r, t.TempDir())
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -133,15 +133,15 @@ func TestDecades(t *testing.T) {
 // among them.
 func TestSpectraStations(t *testing.T) {
 	r := runSmall(t)
-	st := r.spectraStations()
+	st := spectraStations(r)
 	if len(st) > maxSpectraLines || len(st) < 3 {
 		t.Fatalf("%d stations drawn, want 3 to %d", len(st), maxSpectraLines)
 	}
-	order := r.stationOrder()
+	order := r.StationOrder()
 	if st[0].j != order[len(order)-1] || st[len(st)-1].j != order[0] {
 		t.Errorf("first %.1f km, last %.1f km; want the river end then the sea end", r.Stations[st[0].j]/1e3, r.Stations[st[len(st)-1].j]/1e3)
 	}
-	etm := r.nearestStation(r.Summary.ETMPosition)
+	etm := r.NearestStation(r.Summary.ETMPosition)
 	if !slices.ContainsFunc(st, func(s spectraStation) bool { return s.j == etm }) {
 		t.Errorf("station %.1f km nearest the turbidity maximum (%.1f km) is not drawn", r.Stations[etm]/1e3, r.Summary.ETMPosition/1e3)
 	}

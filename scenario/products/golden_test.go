@@ -1,4 +1,4 @@
-package scenario
+package products
 
 import (
 	"context"
@@ -11,6 +11,7 @@ import (
 	"strings"
 	"testing"
 
+	"github.com/murk-optics/murk/scenario"
 	"github.com/murk-optics/murk/scenario/demo"
 	"github.com/murk-optics/murk/scenario/spec"
 )
@@ -33,9 +34,15 @@ func TestGoldenOutputs(t *testing.T) {
 		load func() (spec.Scenario, error)
 	}{
 		{"demo", demo.Scenario},
-		{"salt_wedge", func() (spec.Scenario, error) { return spec.Load(filepath.Join("..", "examples", "salt_wedge.yaml")) }},
-		{"partially_mixed", func() (spec.Scenario, error) { return spec.Load(filepath.Join("..", "examples", "partially_mixed.yaml")) }},
-		{"well_mixed", func() (spec.Scenario, error) { return spec.Load(filepath.Join("..", "examples", "well_mixed.yaml")) }},
+		{"salt_wedge", func() (spec.Scenario, error) {
+			return spec.Load(filepath.Join("..", "..", "examples", "salt_wedge.yaml"))
+		}},
+		{"partially_mixed", func() (spec.Scenario, error) {
+			return spec.Load(filepath.Join("..", "..", "examples", "partially_mixed.yaml"))
+		}},
+		{"well_mixed", func() (spec.Scenario, error) {
+			return spec.Load(filepath.Join("..", "..", "examples", "well_mixed.yaml"))
+		}},
 	}
 	for _, c := range cases {
 		t.Run(c.name, func(t *testing.T) {
@@ -69,11 +76,11 @@ func TestGoldenOutputs(t *testing.T) {
 func goldenDigests(t *testing.T, s spec.Scenario, dir string) string {
 	t.Helper()
 	s.Outputs = spec.Outputs{Directory: dir, NetCDF: true, CSV: true}
-	r, err := Run(context.Background(), s, Options{})
+	r, err := scenario.Run(context.Background(), s, scenario.Options{})
 	if err != nil {
 		t.Fatal(err)
 	}
-	if _, err := r.WriteOutputs(dir); err != nil {
+	if _, err := WriteOutputs(r, dir); err != nil {
 		t.Fatal(err)
 	}
 	ents, err := os.ReadDir(dir)

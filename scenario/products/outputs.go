@@ -1,4 +1,4 @@
-package scenario
+package products
 
 import (
 	"errors"
@@ -9,8 +9,9 @@ import (
 	"runtime"
 	"sync"
 
-	"github.com/murk-optics/murk/scenario/plot"
+	"github.com/murk-optics/murk/scenario"
 	"github.com/murk-optics/murk/scenario/internal/safefile"
+	"github.com/murk-optics/murk/scenario/plot"
 )
 
 // product is one output file: its path and the function that writes it
@@ -29,33 +30,33 @@ func atomic(path string, fill func(io.Writer) error) product {
 // tables, NetCDF, figures, the summary) into dir and returns the paths
 // written, in a fixed order (CSV, NetCDF, figures, summary). A scenario
 // that lists no product gets CSV tables and the summary.
-func (r *Result) WriteOutputs(dir string) ([]string, error) {
+func WriteOutputs(r *scenario.Result, dir string) ([]string, error) {
 	o := r.Scenario.Outputs
 	if !o.CSV && !o.NetCDF && !o.Plots && !o.Summary {
 		o.CSV, o.Summary = true, true
 	}
 	var ps []product
 	if o.CSV {
-		ps = append(ps, r.csvProducts(dir)...)
+		ps = append(ps, csvProducts(r, dir)...)
 	}
 	if o.NetCDF {
-		ps = append(ps, product{filepath.Join(dir, "murk.nc"), r.WriteNetCDF})
+		ps = append(ps, product{filepath.Join(dir, "murk.nc"), func(path string) error { return WriteNetCDF(r, path) }})
 	}
 	if o.Plots {
-		fp, err := r.plotProducts(dir)
+		fp, err := plotProducts(r, dir)
 		if err != nil {
 			return nil, err
 		}
 		ps = append(ps, fp...)
 	}
 	if o.Summary {
-		ps = append(ps, r.summaryProduct(dir))
+		ps = append(ps, summaryProduct(r, dir))
 	}
 	return writeProducts(dir, ps)
 }
 
 // writeProducts writes the products into dir (created if needed), several
-// at once on GOMAXPROCS goroutines: each file depends only on the Result,
+// at once on GOMAXPROCS goroutines: each file depends only on the scenario.Result,
 // so its bytes do not depend on the order or the number of workers. It
 // returns the paths written, in the order of ps, and the first error in
 // that order; every file is written atomically, so a failed product leaves
@@ -91,9 +92,9 @@ func writeProducts(dir string, ps []product) ([]string, error) {
 }
 
 // csvProducts are the CSV tables, each written in chunks of output times.
-func (r *Result) csvProducts(dir string) []product {
+func csvProducts(r *scenario.Result, dir string) []product {
 	var ps []product
-	for _, f := range r.csvTables() {
+	for _, f := range csvTables(r) {
 		ps = append(ps, atomic(filepath.Join(dir, f.name), func(w io.Writer) error { return f.writeCSV(w, len(r.Times)) }))
 	}
 	return ps
@@ -101,13 +102,13 @@ func (r *Result) csvProducts(dir string) []product {
 
 // plotProducts are the figures in the scenario's plot formats (SVG and
 // PNG by default), every figure checked before any is drawn.
-func (r *Result) plotProducts(dir string) ([]product, error) {
+func plotProducts(r *scenario.Result, dir string) ([]product, error) {
 	formats := r.Scenario.Outputs.PlotFormats
 	if len(formats) == 0 {
 		formats = []string{"svg", "png"}
 	}
 	var ps []product
-	for _, nf := range r.Figures() {
+	for _, nf := range Figures(r) {
 		f := nf.Figure
 		if err := f.Check(); err != nil {
 			return nil, fmt.Errorf("figure %s: %w", nf.Base, err)
@@ -124,21 +125,21 @@ func (r *Result) plotProducts(dir string) ([]product, error) {
 	return ps, nil
 }
 
-func (r *Result) summaryProduct(dir string) product {
-	return atomic(filepath.Join(dir, "summary.txt"), r.WriteSummary)
+func summaryProduct(r *scenario.Result, dir string) product {
+	return atomic(filepath.Join(dir, "summary.txt"), func(w io.Writer) error { return WriteSummary(r, w) })
 }
 
 // WriteCSV writes the CSV tables of the run into dir (created if needed)
 // and returns the paths written. Every file is written to a temporary file
 // and renamed, so an error leaves no partial file.
-func (r *Result) WriteCSV(dir string) ([]string, error) {
-	return writeProducts(dir, r.csvProducts(dir))
+func WriteCSV(r *scenario.Result, dir string) ([]string, error) {
+	return writeProducts(dir, csvProducts(r, dir))
 }
 
 // WritePlots draws every figure into dir in the scenario's plot formats
 // (SVG and PNG by default) and returns the paths written.
-func (r *Result) WritePlots(dir string) ([]string, error) {
-	ps, err := r.plotProducts(dir)
+func WritePlots(r *scenario.Result, dir string) ([]string, error) {
+	ps, err := plotProducts(r, dir)
 	if err != nil {
 		return nil, err
 	}
@@ -146,8 +147,8 @@ func (r *Result) WritePlots(dir string) ([]string, error) {
 }
 
 // WriteSummaryFile writes the text summary to dir/summary.txt atomically.
-func (r *Result) WriteSummaryFile(dir string) (string, error) {
-	p := r.summaryProduct(dir)
+func WriteSummaryFile(r *scenario.Result, dir string) (string, error) {
+	p := summaryProduct(r, dir)
 	_, err := writeProducts(dir, []product{p})
 	return p.path, err
 }

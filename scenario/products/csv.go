@@ -1,4 +1,4 @@
-package scenario
+package products
 
 import (
 	"bytes"
@@ -6,8 +6,9 @@ import (
 	"io"
 
 	"github.com/murk-optics/murk/mixing"
-	"github.com/murk-optics/murk/scenario/iop"
+	"github.com/murk-optics/murk/scenario"
 	"github.com/murk-optics/murk/scenario/internal/safefile"
+	"github.com/murk-optics/murk/scenario/iop"
 	"github.com/murk-optics/murk/scenario/spec"
 	"github.com/murk-optics/murk/scenario/table"
 )
@@ -24,22 +25,22 @@ func layerName(l int) string {
 // per output time, cell centre and layer with the water state and the
 // bulk IOPs at the reference wavelength (nearest 550 nm), totals and
 // particles.
-func (r *Result) SectionTable() *table.Table { return r.sectionTable(0, len(r.Times)) }
+func SectionTable(r *scenario.Result) *table.Table { return sectionTable(r, 0, len(r.Times)) }
 
 // StationTable is the same at the stations.
-func (r *Result) StationTable() *table.Table { return r.stationTable(0, len(r.Times)) }
+func StationTable(r *scenario.Result) *table.Table { return stationTable(r, 0, len(r.Times)) }
 
-func (r *Result) sectionTable(t0, t1 int) *table.Table {
-	return r.pointsTable(&r.Section, "section along the channel at every model cell", t0, t1)
+func sectionTable(r *scenario.Result, t0, t1 int) *table.Table {
+	return pointsTable(r, &r.Section, "section along the channel at every model cell", t0, t1)
 }
 
-func (r *Result) stationTable(t0, t1 int) *table.Table {
-	return r.pointsTable(&r.Points, "state and bulk optics at the stations", t0, t1)
+func stationTable(r *scenario.Result, t0, t1 int) *table.Table {
+	return pointsTable(r, &r.Points, "state and bulk optics at the stations", t0, t1)
 }
 
 // pointsTable tabulates the points ps at output times t0 to t1.
-func (r *Result) pointsTable(ps *Points, title string, t0, t1 int) *table.Table {
-	wref := refWavelength(r.Wavelengths)
+func pointsTable(r *scenario.Result, ps *scenario.Points, title string, t0, t1 int) *table.Table {
+	wref := r.Points.Band[r.Points.Ref]
 	t := &table.Table{Title: fmt.Sprintf("%s (IOPs at %.0f nm)", title, r.Wavelengths[wref]*1e9)}
 	t.Columns = []table.Column{
 		{Name: "time", Unit: "h"}, {Name: "distance", Unit: "km"}, {Name: "layer"},
@@ -50,7 +51,7 @@ func (r *Result) pointsTable(ps *Points, title string, t0, t1 int) *table.Table 
 		t.Columns = append(t.Columns, table.Column{Name: "ssc_" + c, Unit: "g m-3"})
 	}
 	for i, p := range r.Scenario.Mixture.Populations {
-		if r.hasFlocs(i) {
+		if hasFlocs(r, i) {
 			t.Columns = append(t.Columns, table.Column{Name: "floc_d50_" + p.Name, Unit: "um"})
 		}
 	}
@@ -70,7 +71,7 @@ func (r *Result) pointsTable(ps *Points, title string, t0, t1 int) *table.Table 
 					row = append(row, ps.Concentration[p*r.NC()+c]*1e3)
 				}
 				for i := range r.Scenario.Mixture.Populations {
-					if r.hasFlocs(i) {
+					if hasFlocs(r, i) {
 						row = append(row, ps.FlocDiameter[p*r.NP()+i]*1e6)
 					}
 				}
@@ -91,20 +92,15 @@ func ratio(x, y float64) float64 {
 	return x / y
 }
 
-func (r *Result) hasFlocs(i int) bool {
-	return r.Components[r.popComponent(i)].Population.Kind == spec.KindFloc
-}
-
-// popComponent returns the component index of population i.
-func (r *Result) popComponent(i int) int {
-	return r.NK() - r.NP() + i
+func hasFlocs(r *scenario.Result, i int) bool {
+	return r.Components[r.ComponentOf(i)].Population.Kind == spec.KindFloc
 }
 
 // SpectraTable holds the spectra at every station, layer and output time:
 // each component's a, b and b_b and the totals.
-func (r *Result) SpectraTable() *table.Table { return r.spectraTable(0, len(r.Times)) }
+func SpectraTable(r *scenario.Result) *table.Table { return spectraTable(r, 0, len(r.Times)) }
 
-func (r *Result) spectraTable(t0, t1 int) *table.Table {
+func spectraTable(r *scenario.Result, t0, t1 int) *table.Table {
 	t := &table.Table{Title: "spectra at stations"}
 	t.Columns = append([]table.Column{{Name: "time", Unit: "h"}, {Name: "distance", Unit: "km"}, {Name: "layer"}, {Name: "wavelength", Unit: "nm"}},
 		spectrumColumns(r.Components)...)
@@ -125,7 +121,7 @@ func (r *Result) spectraTable(t0, t1 int) *table.Table {
 // spectrumColumns are the columns of one spectrum: each component's a
 // (and b and b_b for water and particles), then the totals a, b, b_b, c
 // and b_b/b.
-func spectrumColumns(comps []Component) []table.Column {
+func spectrumColumns(comps []scenario.Component) []table.Column {
 	var cols []table.Column
 	for _, c := range comps {
 		cols = append(cols, table.Column{Name: "a_" + c.Name, Unit: "m-1"})
@@ -140,7 +136,7 @@ func spectrumColumns(comps []Component) []table.Column {
 // spectrumRow appends the cells of spectrumColumns at one wavelength to
 // row; v(q, k) is quantity q (absorption, scattering or backscattering)
 // of component k. Totals are summed in component order.
-func spectrumRow(row []any, comps []Component, v func(q iop.Quantity, k int) float64) []any {
+func spectrumRow(row []any, comps []scenario.Component, v func(q iop.Quantity, k int) float64) []any {
 	var a, b, bb float64
 	for k, c := range comps {
 		ak := v(iop.Absorption, k)
@@ -160,9 +156,9 @@ func spectrumRow(row []any, comps []Component, v func(q iop.Quantity, k int) flo
 // R_rs and K_d per wavelength, with the Secchi depth, hue angle and
 // Forel-Ule class of the spectrum (computed from the upper layer, taken
 // as optically deep and homogeneous).
-func (r *Result) ApparentTable() *table.Table { return r.apparentTable(0, len(r.Times)) }
+func ApparentTable(r *scenario.Result) *table.Table { return apparentTable(r, 0, len(r.Times)) }
 
-func (r *Result) apparentTable(t0, t1 int) *table.Table {
+func apparentTable(r *scenario.Result, t0, t1 int) *table.Table {
 	t := &table.Table{Title: "reflectance and clarity at stations (upper layer)"}
 	t.Columns = []table.Column{{Name: "time", Unit: "h"}, {Name: "distance", Unit: "km"}, {Name: "wavelength", Unit: "nm"},
 		{Name: "Rrs", Unit: "sr-1"}, {Name: "Kd", Unit: "m-1"}, {Name: "secchi_depth", Unit: "m"},
@@ -192,15 +188,15 @@ type namedTable struct {
 	chunk func(t0, t1 int) *table.Table
 }
 
-func (r *Result) csvTables() []namedTable {
+func csvTables(r *scenario.Result) []namedTable {
 	t := []namedTable{
-		{"section.csv", r.sectionTable},
-		{"stations.csv", r.stationTable},
-		{"spectra.csv", r.spectraTable},
-		{"apparent.csv", r.apparentTable},
+		{"section.csv", func(t0, t1 int) *table.Table { return sectionTable(r, t0, t1) }},
+		{"stations.csv", func(t0, t1 int) *table.Table { return stationTable(r, t0, t1) }},
+		{"spectra.csv", func(t0, t1 int) *table.Table { return spectraTable(r, t0, t1) }},
+		{"apparent.csv", func(t0, t1 int) *table.Table { return apparentTable(r, t0, t1) }},
 	}
 	for i, in := range r.Instruments {
-		t = append(t, namedTable{"instrument_" + in.Name + ".csv", func(t0, t1 int) *table.Table { return r.instrumentTable(i, t0, t1) }})
+		t = append(t, namedTable{"instrument_" + in.Name + ".csv", func(t0, t1 int) *table.Table { return instrumentTable(r, i, t0, t1) }})
 	}
 	return t
 }
