@@ -225,3 +225,20 @@ func (nt namedTable) writeCSV(w io.Writer, times int) error {
 
 // csvChunk is the number of output times per chunk of a CSV file.
 const csvChunk = 8
+
+// CSV is the product of tidy CSV tables with units in their headers:
+// section.csv, stations.csv, spectra.csv, apparent.csv and one table per
+// instrument, each written in chunks of output times.
+type CSV struct{}
+
+// Name is "csv".
+func (CSV) Name() string { return "csv" }
+
+// Files lists the tables.
+func (CSV) Files(r *scenario.Result) ([]File, error) {
+	var fs []File
+	for _, f := range csvTables(r) {
+		fs = append(fs, atomic(f.name, func(w io.Writer) error { return f.writeCSV(w, len(r.Times)) }))
+	}
+	return fs, nil
+}

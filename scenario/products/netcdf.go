@@ -234,3 +234,14 @@ func WriteNetCDF(r *scenario.Result, path string) error {
 		return nil
 	})
 }
+
+// NetCDF is the product of one CF-conventions NetCDF file, murk.nc.
+type NetCDF struct{}
+
+// Name is "netcdf".
+func (NetCDF) Name() string { return "netcdf" }
+
+// Files lists murk.nc.
+func (NetCDF) Files(r *scenario.Result) ([]File, error) {
+	return []File{{"murk.nc", func(path string) error { return WriteNetCDF(r, path) }}}, nil
+}

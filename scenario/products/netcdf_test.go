@@ -96,7 +96,7 @@ func TestNetCDFReadBack(t *testing.T) {
 // figures with golden output).
 func TestFigures(t *testing.T) {
 	r := runSmall(t)
-	paths, err := WritePlots(r, t.TempDir())
+	paths, err := Write(r, t.TempDir(), []string{"plots"})
 	if err != nil {
 		t.Fatal(err)
 	}

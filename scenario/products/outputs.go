@@ -7,61 +7,90 @@ import (
 	"os"
 	"path/filepath"
 	"runtime"
+	"slices"
 	"sync"
 
 	"github.com/murk-optics/murk/scenario"
 	"github.com/murk-optics/murk/scenario/internal/safefile"
-	"github.com/murk-optics/murk/scenario/plot"
+	"github.com/murk-optics/murk/scenario/spec"
 )
 
-// product is one output file: its path and the function that writes it
-// there atomically.
-type product struct {
-	path  string
-	write func(path string) error
+// Product is one kind of output of a run: CSV tables, the NetCDF file,
+// figures, the text summary. Adding a product is one file that implements
+// it plus one line in Registry.
+type Product interface {
+	// Name is the product's name in a scenario's outputs.products list.
+	Name() string
+	// Files lists the files the product writes for r, each with the
+	// function that writes it at a path; nothing is written yet.
+	Files(r *scenario.Result) ([]File, error)
 }
 
-// atomic is a product written through safefile (temporary file, rename).
-func atomic(path string, fill func(io.Writer) error) product {
-	return product{path, func(p string) error { return safefile.Write(p, fill) }}
+// File is one output file of a product.
+type File struct {
+	Name  string                  // base name inside the output directory
+	Write func(path string) error // writes the file at path atomically
 }
 
-// WriteOutputs writes the products the scenario asks for (Outputs: CSV
-// tables, NetCDF, figures, the summary) into dir and returns the paths
-// written, in a fixed order (CSV, NetCDF, figures, summary). A scenario
-// that lists no product gets CSV tables and the summary.
-func WriteOutputs(r *scenario.Result, dir string) ([]string, error) {
-	o := r.Scenario.Outputs
-	if !o.CSV && !o.NetCDF && !o.Plots && !o.Summary {
-		o.CSV, o.Summary = true, true
-	}
-	var ps []product
-	if o.CSV {
-		ps = append(ps, csvProducts(r, dir)...)
-	}
-	if o.NetCDF {
-		ps = append(ps, product{filepath.Join(dir, "murk.nc"), func(path string) error { return WriteNetCDF(r, path) }})
-	}
-	if o.Plots {
-		fp, err := plotProducts(r, dir)
-		if err != nil {
-			return nil, err
+// Registry lists every product in the order its files are written and
+// reported.
+var Registry = []Product{CSV{}, NetCDF{}, Plots{}, Summary{}}
+
+// atomic is a file written through safefile (temporary file, rename).
+func atomic(name string, fill func(io.Writer) error) File {
+	return File{name, func(p string) error { return safefile.Write(p, fill) }}
+}
+
+// Requested returns the names of the products a scenario's outputs
+// section asks for; a section that lists none gets CSV tables and the
+// summary.
+func Requested(o spec.Outputs) []string {
+	var names []string
+	for _, p := range []struct {
+		on   bool
+		name string
+	}{{o.CSV, "csv"}, {o.NetCDF, "netcdf"}, {o.Plots, "plots"}, {o.Summary, "summary"}} {
+		if p.on {
+			names = append(names, p.name)
 		}
-		ps = append(ps, fp...)
 	}
-	if o.Summary {
-		ps = append(ps, summaryProduct(r, dir))
+	if len(names) == 0 {
+		names = []string{"csv", "summary"}
 	}
-	return writeProducts(dir, ps)
+	return names
 }
 
-// writeProducts writes the products into dir (created if needed), several
+// WriteOutputs writes the products the scenario asks for into dir and
+// returns the paths written, in Registry order.
+func WriteOutputs(r *scenario.Result, dir string) ([]string, error) {
+	return Write(r, dir, Requested(r.Scenario.Outputs))
+}
+
+// Write writes the named products of r into dir (created if needed) and
+// returns the paths written, in Registry order. Every file of every
+// product is prepared (and checked) before any is written.
+func Write(r *scenario.Result, dir string, names []string) ([]string, error) {
+	var files []File
+	for _, p := range Registry {
+		if !slices.Contains(names, p.Name()) {
+			continue
+		}
+		fs, err := p.Files(r)
+		if err != nil {
+			return nil, fmt.Errorf("%s: %w", p.Name(), err)
+		}
+		files = append(files, fs...)
+	}
+	return writeFiles(dir, files)
+}
+
+// writeFiles writes the files into dir (created if needed), several
 // at once on GOMAXPROCS goroutines: each file depends only on the scenario.Result,
 // so its bytes do not depend on the order or the number of workers. It
 // returns the paths written, in the order of ps, and the first error in
 // that order; every file is written atomically, so a failed product leaves
 // no partial file and the others stay.
-func writeProducts(dir string, ps []product) ([]string, error) {
+func writeFiles(dir string, ps []File) ([]string, error) {
 	if err := os.MkdirAll(dir, 0o755); err != nil {
 		return nil, err
 	}
@@ -73,7 +102,7 @@ func writeProducts(dir string, ps []product) ([]string, error) {
 		go func() {
 			defer wg.Done()
 			for i := range jobs {
-				errs[i] = ps[i].write(ps[i].path)
+				errs[i] = ps[i].Write(filepath.Join(dir, ps[i].Name))
 			}
 		}()
 	}
@@ -85,70 +114,8 @@ func writeProducts(dir string, ps []product) ([]string, error) {
 	var out []string
 	for i, p := range ps {
 		if errs[i] == nil {
-			out = append(out, p.path)
+			out = append(out, filepath.Join(dir, p.Name))
 		}
 	}
 	return out, errors.Join(errs...)
-}
-
-// csvProducts are the CSV tables, each written in chunks of output times.
-func csvProducts(r *scenario.Result, dir string) []product {
-	var ps []product
-	for _, f := range csvTables(r) {
-		ps = append(ps, atomic(filepath.Join(dir, f.name), func(w io.Writer) error { return f.writeCSV(w, len(r.Times)) }))
-	}
-	return ps
-}
-
-// plotProducts are the figures in the scenario's plot formats (SVG and
-// PNG by default), every figure checked before any is drawn.
-func plotProducts(r *scenario.Result, dir string) ([]product, error) {
-	formats := r.Scenario.Outputs.PlotFormats
-	if len(formats) == 0 {
-		formats = []string{"svg", "png"}
-	}
-	var ps []product
-	for _, nf := range Figures(r) {
-		f := nf.Figure
-		if err := f.Check(); err != nil {
-			return nil, fmt.Errorf("figure %s: %w", nf.Base, err)
-		}
-		for _, fm := range formats {
-			ps = append(ps, atomic(filepath.Join(dir, nf.Base+"."+fm), func(w io.Writer) error {
-				if err := f.WriteTo(w, plot.Format(fm)); err != nil {
-					return fmt.Errorf("figure %s: %w", nf.Base, err)
-				}
-				return nil
-			}))
-		}
-	}
-	return ps, nil
-}
-
-func summaryProduct(r *scenario.Result, dir string) product {
-	return atomic(filepath.Join(dir, "summary.txt"), func(w io.Writer) error { return WriteSummary(r, w) })
-}
-
-// WriteCSV writes the CSV tables of the run into dir (created if needed)
-// and returns the paths written. Every file is written to a temporary file
-// and renamed, so an error leaves no partial file.
-func WriteCSV(r *scenario.Result, dir string) ([]string, error) {
-	return writeProducts(dir, csvProducts(r, dir))
-}
-
-// WritePlots draws every figure into dir in the scenario's plot formats
-// (SVG and PNG by default) and returns the paths written.
-func WritePlots(r *scenario.Result, dir string) ([]string, error) {
-	ps, err := plotProducts(r, dir)
-	if err != nil {
-		return nil, err
-	}
-	return writeProducts(dir, ps)
-}
-
-// WriteSummaryFile writes the text summary to dir/summary.txt atomically.
-func WriteSummaryFile(r *scenario.Result, dir string) (string, error) {
-	p := summaryProduct(r, dir)
-	_, err := writeProducts(dir, []product{p})
-	return p.path, err
 }

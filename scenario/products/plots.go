@@ -2,6 +2,7 @@ package products
 
 import (
 	"fmt"
+	"io"
 	"math"
 	"slices"
 
@@ -248,4 +249,35 @@ func spectraStations(r *scenario.Result) []spectraStation {
 type NamedFigure struct {
 	Base   string
 	Figure plot.Figure
+}
+
+// Plots is the product of figures in the scenario's plot formats (SVG and
+// PNG by default), every figure checked before any is drawn.
+type Plots struct{}
+
+// Name is "plots".
+func (Plots) Name() string { return "plots" }
+
+// Files lists one file per figure and format.
+func (Plots) Files(r *scenario.Result) ([]File, error) {
+	formats := r.Scenario.Outputs.PlotFormats
+	if len(formats) == 0 {
+		formats = []string{"svg", "png"}
+	}
+	var fs []File
+	for _, nf := range Figures(r) {
+		f := nf.Figure
+		if err := f.Check(); err != nil {
+			return nil, fmt.Errorf("figure %s: %w", nf.Base, err)
+		}
+		for _, fm := range formats {
+			fs = append(fs, atomic(nf.Base+"."+fm, func(w io.Writer) error {
+				if err := f.WriteTo(w, plot.Format(fm)); err != nil {
+					return fmt.Errorf("figure %s: %w", nf.Base, err)
+				}
+				return nil
+			}))
+		}
+	}
+	return fs, nil
 }

@@ -284,3 +284,14 @@ func interpretation(r *scenario.Result) string {
 	}
 	return b.String()
 }
+
+// Summary is the product of the text summary, summary.txt.
+type Summary struct{}
+
+// Name is "summary".
+func (Summary) Name() string { return "summary" }
+
+// Files lists summary.txt.
+func (Summary) Files(r *scenario.Result) ([]File, error) {
+	return []File{atomic("summary.txt", func(w io.Writer) error { return WriteSummary(r, w) })}, nil
+}

@@ -3,8 +3,8 @@ package cf
 import (
 	"io"
 
-	"github.com/murk-optics/murk/scenario/netcdf"
 	"github.com/murk-optics/murk/scenario/internal/safefile"
+	"github.com/murk-optics/murk/scenario/netcdf"
 )
 
 // Writer streams the data of a [Dataset]. It writes the values of the time
