@@ -12,6 +12,7 @@ import (
 	"github.com/murk-optics/murk/mie/psd"
 	"github.com/murk-optics/murk/mie/refindex"
 	"github.com/murk-optics/murk/scenario/iop"
+	"github.com/murk-optics/murk/scenario/sensing"
 	"github.com/murk-optics/murk/scenario/spec"
 	"github.com/murk-optics/murk/scenario/water"
 )
@@ -38,6 +39,9 @@ type Plan struct {
 	// CDOM, pigment (when it applies) and every population in document
 	// order.
 	Components []Component
+	// Instruments are the simulated sensors of the mixture's optics
+	// section; Angles holds every angle they need.
+	Instruments []sensing.Instrument
 
 	populations []*popOptics
 	workers     int
@@ -94,14 +98,19 @@ func preparePlan(m spec.Mixture, ref water.Medium, oceanSalinity float64, opt Op
 	if err != nil {
 		return nil, err
 	}
+	ins, err := sensing.FromSpecs(m.Optics.Instruments)
+	if err != nil {
+		return nil, err
+	}
+	m.Optics.Angles = sensing.NeededAngles(m.Optics.Angles, ins)
 	p := &Plan{
-		Mixture: m, Wavelengths: m.Optics.Wavelengths, Angles: m.Optics.Angles,
+		Mixture: m, Wavelengths: m.Optics.Wavelengths, Angles: m.Optics.Angles, Instruments: ins,
 		Reference: ref, OceanSalinity: m.Water.OceanSalinity, workers: opt.Workers,
 	}
 	if p.OceanSalinity <= 0 {
 		p.OceanSalinity = oceanSalinity
 	}
-	p.Components = components(m)
+	p.Components = components(p.Mixture)
 	for _, sp := range m.Populations {
 		po, err := preparePopulation(sp, wref)
 		if err != nil {

@@ -14,6 +14,7 @@ import (
 	"github.com/murk-optics/murk/mixing"
 	"github.com/murk-optics/murk/scenario/iop"
 	"github.com/murk-optics/murk/scenario/seen"
+	"github.com/murk-optics/murk/scenario/sensing"
 	"github.com/murk-optics/murk/scenario/spec"
 	"github.com/murk-optics/murk/scenario/water"
 )
@@ -129,11 +130,10 @@ type Result struct {
 
 	SolarZenith float64 // rad, the sun of the apparent properties
 
-	// Instruments are the simulated sensors (see instruments.go);
+	// Instruments are the simulated sensors (package scenario/sensing);
 	// Readings[p·len(Instruments) + i] is instrument i at point p.
-	Instruments        []spec.Instrument
-	Readings           []InstrumentReading
-	SkippedInstruments []string
+	Instruments []sensing.Instrument
+	Readings    []sensing.Reading
 
 	Summary Summary
 }
@@ -364,8 +364,8 @@ func newResult(s spec.Scenario, plan *Plan, hydro *Hydrodynamics) *Result {
 	r.Rrs, r.Kd = f(nq*nw), f(nq*nw)
 	r.Secchi, r.Hue = f(nq), f(nq)
 	r.ForelUle = make([]int, nq)
-	r.Instruments, r.SkippedInstruments = usableInstruments(s)
-	r.Readings = make([]InstrumentReading, np*len(r.Instruments))
+	r.Instruments = plan.Instruments
+	r.Readings = make([]sensing.Reading, np*len(r.Instruments))
 	r.SeenFlags = make([]seen.Flag, nq)
 	return r
 }
@@ -426,9 +426,9 @@ type worker struct {
 	obs     seen.Observer
 	app     seen.Apparent
 	bbw     []float64
-	vsf     seen.VSF  // one wavelength of the total VSF, for the instruments
-	mass    []float64 // per population: dry mass, kg m⁻³ (class-riding and flocs)
-	flocD   []float64 // per population: floc median diameter, m
+	point   *sensing.Point // the instruments' view of the point
+	mass    []float64      // per population: dry mass, kg m⁻³ (class-riding and flocs)
+	flocD   []float64      // per population: floc median diameter, m
 }
 
 // fill sets the worker's components to water of salinity sal and
@@ -508,7 +508,7 @@ func (p *Plan) newWorker(opt Options) (*worker, error) {
 	}
 	w.bbp, w.cp = make([]float64, nw), make([]float64, nw)
 	w.bbw = make([]float64, nw)
-	w.vsf = seen.VSF{Angle: p.Angles, Beta: make([]float64, len(p.Angles))}
+	w.point = sensing.NewPoint(p.Wavelengths, p.Angles)
 	w.mass, w.flocD = make([]float64, len(pops)), make([]float64, len(pops))
 	so := p.OceanSalinity
 	cd := p.Mixture.Water.CDOM
@@ -588,13 +588,16 @@ func (r *Result) evaluateTime(w *worker, t int) error {
 				copy(r.Bb[o:o+nw], comps[kk].Bb)
 			}
 			copy(r.VSF[p*nw*na:(p+1)*nw*na], w.total.VSF)
-			if err := r.readInstruments(w, p, r.Salinity[p], r.Temperature[p]); err != nil {
-				return err
-			}
+			var rrs []float64 // reflectance, at the surface only
 			if l == 0 {
-				if err := r.see(w, t*len(r.Stations)+j); err != nil {
+				q := t*len(r.Stations) + j
+				if err := r.see(w, q); err != nil {
 					return err
 				}
+				rrs = r.Rrs[q*nw : (q+1)*nw]
+			}
+			if err := r.readInstruments(w, p, r.Salinity[p], r.Temperature[p], rrs); err != nil {
+				return err
 			}
 		}
 	}

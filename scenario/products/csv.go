@@ -196,7 +196,7 @@ func csvTables(r *scenario.Result) []namedTable {
 		{"apparent.csv", func(t0, t1 int) *table.Table { return apparentTable(r, t0, t1) }},
 	}
 	for i, in := range r.Instruments {
-		t = append(t, namedTable{"instrument_" + in.Name + ".csv", func(t0, t1 int) *table.Table { return instrumentTable(r, i, t0, t1) }})
+		t = append(t, namedTable{"instrument_" + in.Describe().Name + ".csv", func(t0, t1 int) *table.Table { return instrumentTable(r, i, t0, t1) }})
 	}
 	return t
 }

@@ -4,7 +4,6 @@ import (
 	"fmt"
 
 	"github.com/murk-optics/murk/scenario"
-	"github.com/murk-optics/murk/scenario/spec"
 	"github.com/murk-optics/murk/scenario/table"
 )
 
@@ -15,14 +14,9 @@ func InstrumentTable(r *scenario.Result, i int) *table.Table {
 }
 
 func instrumentTable(r *scenario.Result, i, t0, t1 int) *table.Table {
-	in := r.Instruments[i]
-	u := instrumentUnit(in.Kind)
-	q := instrumentQuantity(in.Kind)
-	lambda := in.Wavelength
-	if in.Kind == spec.Turbidity {
-		lambda = 860e-9
-	}
-	t := &table.Table{Title: fmt.Sprintf("instrument %s: %s, %s at %.0f nm", in.Name, in.Kind, q, lambda*1e9)}
+	d := r.Instruments[i].Describe()
+	u := d.Unit
+	t := &table.Table{Title: fmt.Sprintf("instrument %s: %s, %s at %.0f nm", d.Name, d.Kind, d.Quantity, d.Wavelength*1e9)}
 	t.Columns = []table.Column{{Name: "time", Unit: "h"}, {Name: "distance", Unit: "km"}, {Name: "layer"},
 		{Name: "reading", Unit: u}, {Name: "model_value", Unit: u}, {Name: "flags"}}
 	for ti := t0; ti < t1; ti++ {
@@ -35,22 +29,4 @@ func instrumentTable(r *scenario.Result, i, t0, t1 int) *table.Table {
 		}
 	}
 	return t
-}
-
-// instrumentUnit returns the unit of an instrument's reading.
-func instrumentUnit(k spec.InstrumentKind) string {
-	if k == spec.Turbidity {
-		return "m-1 sr-1"
-	}
-	return "m-1"
-}
-
-func instrumentQuantity(k spec.InstrumentKind) string {
-	switch k {
-	case spec.Transmissometer:
-		return "beam attenuation c"
-	case spec.Backscatter:
-		return "backscattering b_b"
-	}
-	return "particle VSF at 90 deg"
 }

@@ -10,7 +10,6 @@ import (
 	"github.com/murk-optics/murk/scenario"
 	"github.com/murk-optics/murk/scenario/netcdf"
 	"github.com/murk-optics/murk/scenario/netcdf/cf"
-	"github.com/murk-optics/murk/scenario/spec"
 )
 
 // NetCDFEpoch is the nominal calendar date of the start of a run (the
@@ -122,15 +121,9 @@ func ncVars(r *scenario.Result) []ncVar {
 	})
 	ni := len(r.Instruments)
 	for i, in := range r.Instruments {
-		std := ""
-		switch in.Kind {
-		case spec.Transmissometer:
-			std = cf.StdBeamAttenuation
-		case spec.Backscatter:
-			std = cf.StdBackscattering
-		}
-		add("instrument_"+in.Name, []string{"time", "distance", "layer"}, instrumentUnit(in.Kind),
-			fmt.Sprintf("simulated %s %s: %s", in.Kind, in.Name, instrumentQuantity(in.Kind)), std, func() []float64 {
+		d := in.Describe()
+		add("instrument_"+d.Name, []string{"time", "distance", "layer"}, d.Unit,
+			fmt.Sprintf("simulated %s %s: %s", d.Kind, d.Name, d.Quantity), d.StandardName, func() []float64 {
 				v := make([]float64, len(r.Salinity))
 				for p := range v {
 					v[p] = r.Readings[p*ni+i].Value

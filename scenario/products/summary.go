@@ -129,15 +129,13 @@ func instrumentLines(r *scenario.Result) string {
 		v0, t0 := mean(mouth)
 		v1, t1 := mean(etm)
 		v2, t2 := mean(head)
+		d := in.Describe()
 		fmt.Fprintf(&b, "  %-12s %s: %.3g / %.3g / %.3g %s (model value %.3g / %.3g / %.3g)",
-			in.Name, instrumentQuantity(in.Kind), v0, v1, v2, instrumentUnit(in.Kind), t0, t1, t2)
+			d.Name, d.Quantity, v0, v1, v2, d.Unit, t0, t1, t2)
 		if flags != 0 {
 			fmt.Fprintf(&b, "; flags: %s", flags)
 		}
 		b.WriteString("\n")
-	}
-	if len(r.SkippedInstruments) > 0 {
-		fmt.Fprintf(&b, "  skipped: %s\n", strings.Join(r.SkippedInstruments, ", "))
 	}
 	b.WriteString("  The turbidity sensor is reported as the particle β(90°) at 860 nm, the signal an ISO 7027 nephelometer measures; converting it to FNU needs the optics of a formazin standard.\n")
 	return b.String()

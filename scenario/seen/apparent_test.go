@@ -94,7 +94,7 @@ func TestFlagString(t *testing.T) {
 	if Flag(0).String() != "none" || !strings.Contains(Flag(1<<31).String(), "unknown") {
 		t.Error("none/unknown")
 	}
-	if len(flagNames) != 16 || FlagOutOfGamut != 1<<15 {
+	if len(flagNames) != 17 || FlagNotSurface != 1<<16 {
 		t.Error("flag names out of step with constants")
 	}
 }

@@ -58,13 +58,16 @@ const (
 	// FlagOutOfGamut: the colour lies outside the sRGB gamut; negative linear
 	// components were clipped to 0.
 	FlagOutOfGamut
+	// FlagNotSurface: a reading that needs the light leaving the surface
+	// (a radiometer band) was asked for below the surface layer.
+	FlagNotSurface
 )
 
 var flagNames = [...]string{
 	"thick-path", "forward-extrapolated", "negative-particle", "off-standard",
 	"above-nephelometric-range", "saturated", "underrange", "below-detection",
 	"outside-fit", "low-sun", "no-secchi", "bright-water", "achromatic",
-	"complementary", "forel-ule-clamped", "out-of-gamut",
+	"complementary", "forel-ule-clamped", "out-of-gamut", "not-surface",
 }
 
 // Has reports whether every flag in q is set in f.
